@@ -1,5 +1,6 @@
 package org.leadline.cli;
 
+import java.util.ArrayList;
 import java.util.List;
 
 /** The list of subcommands; each front-end command is one class in this package. */
@@ -7,8 +8,8 @@ final class Commands {
     private Commands() {}
 
     static List<Object> all() {
-        return List.of(
-                // add new commands here, one per line, to keep merges simple
-        );
+        List<Object> c = new ArrayList<>();
+        c.add(new BarcheckCommand());
+        return c;
     }
 }
