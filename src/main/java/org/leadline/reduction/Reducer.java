@@ -49,7 +49,16 @@ public final class Reducer {
      */
     public record MergedInputs(double[] lat, double[] lon, double[] heading, double[] heave,
                                double[] roll, double[] pitch, double[] speedOverGround,
-                               double[] waterLevel, byte[] preReason) {}
+                               byte[] preReason) {}
+
+    /**
+     * Water level above chart datum at a time and the sounding's position, m; must be thread-safe.
+     * Returns NaN when unknown (the sounding is then rejected as having no water level).
+     */
+    @FunctionalInterface
+    public interface WaterLevelAt {
+        double level(double time, double lat, double lon);
+    }
 
     /**
      * How each ping chooses its ray tracer: {@code castA[i]} (and, when {@code weight[i] > 0},
@@ -83,10 +92,11 @@ public final class Reducer {
      * @param in       merged sensors and water levels, one entry per ping
      * @param tracers  one tracer per cast (index as in {@code choice})
      * @param choice   which cast each ping uses
+     * @param waterLevel water level above chart datum, looked up at the sounding's own position
      * @param projector to the run's projected CRS
      */
     public SoundingTable reduce(PingTable pings, MergedInputs in, BeamTracer[] tracers, CastChoice choice,
-                                Projector projector) {
+                                WaterLevelAt waterLevel, Projector projector) {
         int n = pings.size;
         SoundingTable s = new SoundingTable(n, pings.lineNames());
         int chunk = 1 << 14;
@@ -94,14 +104,14 @@ public final class Reducer {
         IntStream.range(0, chunks).parallel().forEach(c -> {
             double[] out = new double[2], out2 = new double[2];
             int end = Math.min(n, (c + 1) * chunk);
-            for (int i = c * chunk; i < end; i++) reduceOne(i, pings, in, tracers, choice, s, out, out2);
+            for (int i = c * chunk; i < end; i++) reduceOne(i, pings, in, tracers, choice, waterLevel, s, out, out2);
         });
         projector.forward(s.lat, s.lon, s.easting, s.northing);
         return s;
     }
 
     private void reduceOne(int i, PingTable p, MergedInputs in, BeamTracer[] tracers, CastChoice choice,
-                           SoundingTable s, double[] out, double[] out2) {
+                           WaterLevelAt waterLevel, SoundingTable s, double[] out, double[] out2) {
         s.time[i] = p.time[i];
         s.line[i] = p.line[i];
         s.beam[i] = p.beam[i];
@@ -169,7 +179,6 @@ public final class Reducer {
         }
         double surfaceDepth = zt + out[0];
         s.surfaceDepth[i] = surfaceDepth;
-        s.depth[i] = surfaceDepth - in.waterLevel()[i];
         s.launchAngle[i] = theta;
         s.acrossTrack[i] = out[1] * Math.sin(azRel) + levelY(T.x() - P.x(), T.y() - P.y(), T.z() - P.z(), cf, sf);
 
@@ -187,6 +196,12 @@ public final class Reducer {
         double meridian = WGS84_A * (1 - WGS84_E2) / (w2 * Math.sqrt(w2));
         s.lat[i] = lat + Math.toDegrees(north / meridian);
         s.lon[i] = wrapLon(lon + Math.toDegrees(east / (primeVertical * Math.cos(latR))));
+        double level = waterLevel.level(p.time[i], s.lat[i], s.lon[i]);
+        s.depth[i] = surfaceDepth - level;
+        if (Double.isNaN(level)) {
+            s.reject(i, Reason.NO_WATER_LEVEL);
+            return;
+        }
         s.status[i] = SoundingTable.Status.ACCEPTED.code;
     }
 

@@ -108,7 +108,8 @@ public final class SoundingTable {
         QUALITY(7, "sounder-quality"),
         REVIEWER(8, "reviewer"),
         ANGLE_GATE(9, "angle-gate"),
-        BEYOND_PROFILE(10, "beyond-profile");
+        BEYOND_PROFILE(10, "beyond-profile"),
+        NO_WATER_LEVEL(11, "outside-water-level");
 
         public final byte code;
         public final String label;
