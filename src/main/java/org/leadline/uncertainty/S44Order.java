@@ -11,6 +11,9 @@ import java.util.Locale;
  * limit: {@code THU_max(d) = fixed + fraction * d}. Feature detection, feature search and
  * bathymetric coverage are carried as text for the report (the standard gives them in words).
  *
+ * <p>Values (from memory) cross-checked against secondary reproductions of Table 1; the IHO's
+ * authentic text could not be opened when this was written and prevails (docs/science/uncertainty.md).
+ *
  * <p>Drying heights (negative reduced depths) are tested at d = 0: only the depth-independent part
  * applies (common practice; the standard does not give a separate formula for them).
  *

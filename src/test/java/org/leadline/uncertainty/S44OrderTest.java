@@ -8,8 +8,9 @@ import static org.assertj.core.api.Assertions.within;
 
 /**
  * IHO S-44 edition 6.0.0 (2020), "IHO Standards for Hydrographic Surveys", Table 1 (minimum
- * standards for safety-of-navigation surveys). Values cross-checked against secondary copies of
- * Table 1; the IHO's authentic text prevails (see docs/science/uncertainty.md).
+ * standards for safety-of-navigation surveys). Table values are (from memory), cross-checked against
+ * secondary reproductions of Table 1 found by search; the IHO's authentic text prevails
+ * (docs/science/uncertainty.md).
  */
 class S44OrderTest {
 
