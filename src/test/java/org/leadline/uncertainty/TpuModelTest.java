@@ -175,6 +175,66 @@ class TpuModelTest {
         return sd / (b.tvu() / HorizontalConfidence.LINEAR_95);
     }
 
+    /**
+     * Independent horizontal forward model: a 45-degree beam, 20 m deep, from a transducer 3 m forward
+     * and 1 m to starboard of the antenna, heading 30 degrees, SOG 2.5 m/s. Every input is perturbed
+     * (antenna position, both measured offsets, heading, roll, pitch, range, both sound speeds,
+     * latency, and the detection point drawn uniformly within half the footprint); the footprint's
+     * north/east position is recomputed and its error resolved along and across the true heading.
+     * The sampled standard deviations must match the model's sigma_along and sigma_across.
+     */
+    @Test
+    void monteCarloHorizontalSwathBeam() {
+        double[] ratio = horizontalRatios();
+        assertThat(ratio[0]).as("along-track").isCloseTo(1.0, within(0.03));
+        assertThat(ratio[1]).as("across-track").isCloseTo(1.0, within(0.03));
+    }
+
+    /** Sampled / modelled one-sigma, {along, across}, of the forward model described above. */
+    static double[] horizontalRatios() {
+        Vessel.Offset antenna = new Vessel.Offset(-2, 0, -3);
+        Vessel.Offset transducer = new Vessel.Offset(1, 1, 1);
+        Vessel v = new Vessel(1.0, new double[0], new double[0], antenna, transducer, 0, 1500, 8 * DEG, SIGMAS);
+        Vessel.SensorSigmas s = SIGMAS;
+        double c = 1500, zTrue = 20, thetaTrue = 45 * DEG, heading = 30 * DEG, sog = 2.5;
+        double rTrue = zTrue / Math.cos(thetaTrue);
+        double twtt = 2 * rTrue / c;
+        double sigmaRange = Math.hypot(s.sounderFixed(), s.sounderRelative() * rTrue);
+        double halfAlong = rTrue * Math.tan(4 * DEG);
+        double halfAcross = halfAlong / Math.cos(thetaTrue);
+        // true footprint in the vessel frame (forward, starboard), relative to the antenna
+        double trueF = transducer.x() - antenna.x(), trueS = transducer.y() - antenna.y() + rTrue * Math.sin(thetaTrue);
+        SplittableRandom rnd = new SplittableRandom(99);
+        int n = 200_000;
+        double sa = 0, sa2 = 0, sc = 0, sc2 = 0;
+        for (int k = 0; k < n; k++) {
+            double eN = s.position() * gauss(rnd), eE = s.position() * gauss(rnd);
+            double leverF = (transducer.x() + s.leverArm() * gauss(rnd)) - (antenna.x() + s.leverArm() * gauss(rnd));
+            double leverS = (transducer.y() + s.leverArm() * gauss(rnd)) - (antenna.y() + s.leverArm() * gauss(rnd));
+            double h = heading + s.heading() * gauss(rnd);
+            double r = twtt * (c + s.soundSpeedProfile() * gauss(rnd)) / 2 + sigmaRange * gauss(rnd);
+            double theta = Math.asin(Math.sin(thetaTrue) * (c + s.soundSpeedSurface() * gauss(rnd)) / c)
+                    - s.roll() * gauss(rnd);
+            double pitch = s.pitch() * gauss(rnd);
+            double f = leverF + r * Math.cos(theta) * Math.sin(pitch) + halfAlong * (2 * rnd.nextDouble() - 1);
+            double st = leverS + r * Math.sin(theta) + halfAcross * (2 * rnd.nextDouble() - 1);
+            double lag = sog * s.latency() * gauss(rnd);   // ship moved along its heading during the lag
+            // north/east of the computed footprint minus the true one
+            double dN = eN + (f + lag) * Math.cos(h) - st * Math.sin(h) - (trueF * Math.cos(heading) - trueS * Math.sin(heading));
+            double dE = eE + (f + lag) * Math.sin(h) + st * Math.cos(h) - (trueF * Math.sin(heading) + trueS * Math.cos(heading));
+            double along = dN * Math.cos(heading) + dE * Math.sin(heading);
+            double across = -dN * Math.sin(heading) + dE * Math.cos(heading);
+            sa += along;
+            sa2 += along * along;
+            sc += across;
+            sc2 += across * across;
+        }
+        double sdAlong = Math.sqrt((sa2 - sa * sa / n) / (n - 1));
+        double sdAcross = Math.sqrt((sc2 - sc * sc / n) / (n - 1));
+        TpuBreakdown b = new TpuModel(v).breakdown(zTrue, rTrue * Math.sin(thetaTrue), 0, c, sog, Double.NaN);
+        return new double[] {sdAlong / b.sigmaAlongTrack(), sdAcross / b.sigmaAcrossTrack()};
+    }
+
     @Test
     void computeFillsColumnsLikeBreakdown() {
         // three soundings: vertical 20 m, 45-degree beam, and one without a depth
