@@ -61,6 +61,16 @@ public final class NmeaReader {
 
     private NmeaReader() { }
 
+    /**
+     * NMEA 0183 checksum of a sentence body: the XOR of the 8-bit codes of every character between
+     * the '$' (or '!') and the '*', both exclusive. Written as two upper-case hex digits after '*'.
+     */
+    public static int checksum(CharSequence body) {
+        int sum = 0;
+        for (int i = 0; i < body.length(); i++) sum ^= body.charAt(i);
+        return sum & 0xFF;
+    }
+
     /** Reads a log that carries its own date (ZDA or RMC). */
     public static NmeaLog read(Path file) throws IOException {
         return read(file, null);
