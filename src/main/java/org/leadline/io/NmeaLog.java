@@ -149,6 +149,22 @@ public final class NmeaLog {
 
     public NmeaProblems problems() { return problems; }
 
+    /** One paragraph for a log or report: sentences used per type, rows per column, problems. */
+    public String summary() {
+        StringBuilder sb = new StringBuilder(source == null ? "NMEA log" : source).append(": sentences used");
+        for (Sentence s : Sentence.values()) {
+            if (sentenceCounts[s.ordinal()] > 0) sb.append(' ').append(s).append(' ').append(sentenceCounts[s.ordinal()]);
+        }
+        sb.append("; ").append(depthCount).append(" depths, ").append(fixCount).append(" fixes, ")
+                .append(headingCount).append(" headings, ").append(speedCount).append(" speeds; ");
+        long p = problems.total();
+        sb.append(p == 0 ? "no problems" : p + " problem lines:\n" + problems.summary());
+        return sb.toString();
+    }
+
+    @Override
+    public String toString() { return summary(); }
+
     /** Number of sentences of this type that were read and used. */
     public long sentenceCount(Sentence s) { return sentenceCounts[s.ordinal()]; }
 

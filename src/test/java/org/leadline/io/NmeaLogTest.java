@@ -156,5 +156,7 @@ class NmeaLogTest {
         }
         // VTG and RMC speeds: 3.89 kn written for 2 m/s (3.8877 kn)
         for (int i = 0; i < log.speedCount; i++) assertThat(log.sog[i]).isCloseTo(2.0, within(0.01));
+        assertThat(log.summary()).contains("GGA 60").contains("240 depths").contains("4 problem lines")
+                .contains("line 82: $SDDBT,65.6,f,20.00,M,10.9,F*00 : checksum 00, computed 09");
     }
 }
