@@ -142,6 +142,10 @@ class NmeaReaderTest {
         assertThat(log.sog[0]).isCloseTo(2.778, within(1e-12));
         assertThat(log.cog[0]).isEqualTo(271.5);
         assertThat(log.speedSource(0)).isEqualTo(Sentence.RMC);
+        // NMEA 0183 4.1 navigational status V (not valid) in field 13: the fix is not used
+        NmeaLog invalid = parse(sentence("GPRMC,083559.25,A,5012.0000,N,00130.0000,W,5.40,271.5,150526,1.2,W,D,V"));
+        assertThat(invalid.fixCount).isZero();
+        assertThat(invalid.problems().count(Kind.NO_VALID_FIX)).isEqualTo(1);
     }
 
     @Test
