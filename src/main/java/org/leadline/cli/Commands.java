@@ -9,6 +9,7 @@ final class Commands {
     static List<Object> all() {
         return List.of(
                 // add new commands here, one per line, to keep merges simple
+                new CastCommand()
         );
     }
 }
