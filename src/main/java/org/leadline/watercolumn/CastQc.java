@@ -16,7 +16,7 @@ import java.util.Locale;
  * <li>reject non-physical values (temperature outside -2..40 deg C, salinity outside 0..42, sound
  * speed outside 1375..1625 m/s, or no sound speed at all);</li>
  * <li>reject spikes: sound speed departing from the running median of its neighbours by more than
- * {@link Settings#spikeThreshold()};</li>
+ * {@link Settings#spikeThreshold()} (dense casts only, see {@link #MAX_SPIKE_SPACING});</li>
  * <li>average what is left in regular depth bins centred on multiples of the bin step;</li>
  * <li>optionally extend the profile to a requested depth by holding the deepest values constant,
  * stated as a note.</li>
@@ -28,6 +28,9 @@ public final class CastQc {
 
     /** Temperature, salinity and sound-speed limits of plausible seawater (common practice). */
     public static final double T_MIN = -2, T_MAX = 40, S_MIN = 0, S_MAX = 42, C_MIN = 1375, C_MAX = 1625;
+
+    /** Spike test only where samples are at most this far apart, m (a CTD profiling at 2+ samples per metre). */
+    public static final double MAX_SPIKE_SPACING = 0.5;
 
     /**
      * QC settings.
@@ -143,17 +146,26 @@ public final class CastQc {
                 reason[i] = String.format(Locale.ROOT, "sound speed %.3f m/s outside %.0f..%.0f", c[i], C_MIN, C_MAX);
             }
         }
-        // 4. spikes against the running median of the samples still accepted
+        // 4. spikes against the running median of the samples still accepted, on a window centred on the
+        // sample (shortened symmetrically near the ends, so a steady gradient never looks like a spike; the
+        // first and last samples cannot be judged). Only dense casts are judged: between samples more than
+        // MAX_SPIKE_SPACING apart a real sound-speed minimum would look like a spike.
         int[] ok = accepted(reason, start, end);
         int half = s.spikeWindow() / 2;
         String[] spike = new String[ok.length];
-        for (int k = 0; k < ok.length; k++) {
-            int a = Math.max(0, k - half), b = Math.min(ok.length - 1, k + half);
-            if (b - a < 2) continue; // too few neighbours to judge
-            double[] w = new double[b - a + 1];
-            for (int j = a; j <= b; j++) w[j - a] = c[ok[j]];
+        double spacing = medianSpacing(z, ok);
+        List<String> notes = new ArrayList<>();
+        if (ok.length >= 3 && spacing > MAX_SPIKE_SPACING) {
+            notes.add(String.format(Locale.ROOT, "spike test skipped: samples are %.2f m apart (it needs %.1f m or less)",
+                    spacing, MAX_SPIKE_SPACING));
+        }
+        for (int k = 0; k < ok.length && spacing <= MAX_SPIKE_SPACING; k++) {
+            int h = Math.min(half, Math.min(k, ok.length - 1 - k));
+            if (h < 1) continue;
+            double[] w = new double[2 * h + 1];
+            for (int j = -h; j <= h; j++) w[j + h] = c[ok[k + j]];
             Arrays.sort(w);
-            double med = w.length % 2 == 1 ? w[w.length / 2] : 0.5 * (w[w.length / 2 - 1] + w[w.length / 2]);
+            double med = w[h];
             double dev = c[ok[k]] - med;
             if (Math.abs(dev) > s.spikeThreshold()) {
                 spike[k] = String.format(Locale.ROOT, "spike: sound speed %.3f m/s departs %.3f m/s from the running median %.3f m/s (limit %.3f)",
@@ -172,7 +184,6 @@ public final class CastQc {
         // 5. binning
         Columns binned = bin(in, ok, s.binStep());
         // 6. extension and notes
-        List<String> notes = new ArrayList<>();
         int m = binned.size();
         double last = binned.depth()[m - 1];
         if (Double.isFinite(s.extendToDepth()) && s.extendToDepth() > last) {
@@ -186,6 +197,15 @@ public final class CastQc {
                     binned.depth()[0], binned.soundSpeed()[0]));
         }
         return new Result(binned, rejections, notes, start, end);
+    }
+
+    /** Median spacing of consecutive accepted depths, m (0 for fewer than two samples). */
+    private static double medianSpacing(double[] z, int[] ok) {
+        if (ok.length < 2) return 0;
+        double[] d = new double[ok.length - 1];
+        for (int k = 1; k < ok.length; k++) d[k - 1] = z[ok[k]] - z[ok[k - 1]];
+        Arrays.sort(d);
+        return d[d.length / 2];
     }
 
     private static int[] accepted(String[] reason, int start, int end) {

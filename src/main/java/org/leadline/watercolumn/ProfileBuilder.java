@@ -65,7 +65,11 @@ public final class ProfileBuilder {
         CastQc.Result qc = CastQc.apply(new CastQc.Columns(z, p, t, s, c), settings);
         CastQc.Columns b = qc.binned();
         double[] bz = b.depth(), bp = b.pressure();
-        for (int i = 0; i < bz.length; i++) if (Double.isNaN(bp[i])) bp[i] = PressureDepth.pressure(bz[i], lat);
+        boolean binned = Double.isFinite(settings.binStep()) && settings.binStep() > 0;
+        for (int i = 0; i < bz.length; i++) {
+            // a bin is labelled with its centre depth, so its pressure is that depth's (not the samples' mean)
+            if (binned || Double.isNaN(bp[i])) bp[i] = PressureDepth.pressure(bz[i], lat);
+        }
         if (!measured) {
             rangeSummary(eq, b).ifPresent(warnings::add);
         }
