@@ -10,6 +10,7 @@ final class Commands {
     static List<Object> all() {
         List<Object> c = new ArrayList<>();
         c.add(new BarcheckCommand());
+        c.add(new CastCommand());
         return c;
     }
 }
