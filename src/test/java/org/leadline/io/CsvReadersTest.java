@@ -31,7 +31,7 @@ class CsvReadersTest {
             assertThat(e.file()).isEqualTo(file.toString());
             assertThat(e.line()).as("line of: " + e.getMessage()).isEqualTo(line);
             assertThat(e.column()).as("column of: " + e.getMessage()).isEqualTo(column);
-            assertThat(e.getMessage()).startsWith(file + ":" + line + (column > 0 ? ":" + column : "") + ": ")
+            assertThat(e.getMessage()).startsWith(file + (line > 0 ? ":" + line : "") + (column > 0 ? ":" + column : "") + ": ")
                     .contains(fragment);
         });
     }
