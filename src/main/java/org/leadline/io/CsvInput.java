@@ -57,6 +57,7 @@ final class CsvInput implements AutoCloseable {
         headerText = String.join(",", record.values());
         for (int c = 0; c < record.size(); c++) {
             String name = record.get(c).toLowerCase(Locale.ROOT);
+            if (c == 0 && name.startsWith("\uFEFF")) name = name.substring(1).trim(); // byte-order mark of spreadsheet exports
             if (name.isEmpty()) continue;
             if (header.putIfAbsent(name, c) != null) {
                 throw new InputException(file, line, c + 1, "column '" + name + "' appears twice in the header");

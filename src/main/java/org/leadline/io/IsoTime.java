@@ -72,7 +72,6 @@ public final class IsoTime {
         if (tc != 'T' && tc != 't' && tc != ' ') return Double.NaN;
         if (mo < 1 || mo > 12 || d < 1 || d > daysInMonth(y, mo) || h > 23 || mi > 59 || se > 59) return Double.NaN;
         int i = 19;
-        long fracDigits = 0;
         double frac = 0;
         if (i < n && s.charAt(i) == '.') {
             i++;
@@ -82,7 +81,6 @@ public final class IsoTime {
             while (i < n && s.charAt(i) >= '0' && s.charAt(i) <= '9') {
                 if (scale < 1_000_000_000_000L) { num = num * 10 + (s.charAt(i) - '0'); scale *= 10; }
                 i++;
-                fracDigits++;
             }
             if (i == start) return Double.NaN;
             frac = (double) num / scale;

@@ -5,6 +5,8 @@ import org.leadline.survey.AttitudeSeries;
 import org.leadline.survey.NavigationSeries;
 import org.leadline.survey.PingTable;
 import org.leadline.survey.SoundingTable.Reason;
+import org.leadline.survey.TimeSeries;
+import org.leadline.survey.Vessel;
 
 /**
  * Time merge of navigation and attitude to pings (docs/science/time-merge.md).
@@ -39,6 +41,11 @@ public final class SensorMerge {
     private static final double A = 6378137.0, F = 1 / 298.257223563, E2 = F * (2 - F);
 
     private SensorMerge() {}
+
+    /** Merge with the vessel's latency and the default speed window. */
+    public static MergedPings merge(PingTable pings, NavigationSeries navigation, AttitudeSeries attitude, Vessel vessel) {
+        return merge(pings, navigation, attitude, vessel.latency(), DEFAULT_SPEED_WINDOW);
+    }
 
     /** Merge with the default speed window. */
     public static MergedPings merge(PingTable pings, NavigationSeries navigation, AttitudeSeries attitude, double latency) {
@@ -91,7 +98,7 @@ public final class SensorMerge {
             }
             double ta = t + latency;
             boolean attOk = attitude == null || attitude.covers(ta);
-            m.heading[i] = fromSeries[AttitudeSeries.HEADING] ? attitude.heading(ta) : pings.heading[i];
+            m.heading[i] = fromSeries[AttitudeSeries.HEADING] ? attitude.heading(ta) : TimeSeries.wrap360(pings.heading[i]);
             m.heave[i] = fromSeries[AttitudeSeries.HEAVE] ? attitude.heave(ta) : pings.heave[i];
             m.roll[i] = fromSeries[AttitudeSeries.ROLL] ? attitude.roll(ta) : pings.roll[i];
             m.pitch[i] = fromSeries[AttitudeSeries.PITCH] ? attitude.pitch(ta) : pings.pitch[i];
@@ -149,7 +156,7 @@ public final class SensorMerge {
      * @return false when the track does not give two distinct positions around t
      */
     public static boolean speedAndCourse(NavigationSeries track, double t, double window, double[] out) {
-        org.leadline.survey.TimeSeries s = track.series();
+        TimeSeries s = track.series();
         if (!track.covers(t)) return false;
         double a = Math.max(s.first(), t - window / 2), b = Math.min(s.last(), t + window / 2);
         if (!(b > a)) return false;

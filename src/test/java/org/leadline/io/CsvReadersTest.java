@@ -51,6 +51,7 @@ class CsvReadersTest {
                 .isEqualTo((double) java.time.Instant.parse("2024-02-29T00:00:00Z").getEpochSecond());
         assertThat(IsoTime.parse("2026-05-14T09:15:02.123456Z")).isCloseTo(T0 - 0.25 + 0.123456, within(1e-6));
         assertThatThrownBy(() -> IsoTime.parse("2026-02-30T00:00:00Z")).isInstanceOf(IllegalArgumentException.class);
+        assertThatThrownBy(() -> IsoTime.parse("2026-06-30T23:59:60Z")).isInstanceOf(IllegalArgumentException.class);
         assertThatThrownBy(() -> IsoTime.parse("14/05/2026 09:15")).isInstanceOf(IllegalArgumentException.class);
         assertThat(IsoTime.format(T0)).isEqualTo("2026-05-14T09:15:02.250Z");
     }
@@ -147,6 +148,26 @@ class CsvReadersTest {
         fails(() -> AttitudeCsvReader.read(att3), att3, 3, 1, "increase strictly");
         Path wl = file("wl.csv", "#gauge\ntime,level\n2026-05-14T09:00:00Z,1.2\n2026-05-14T09:10:00Z,abc\n");
         fails(() -> WaterLevelCsvReader.read(wl), wl, 4, 2, "expected a number for 'level', found 'abc'");
+        Path nav4 = file("nav4.csv", "time,lat,lon\n2026-05-14T09:15:00Z,50,-1\n2026-05-14T09:15:01Z,50.1.2,-1\n");
+        fails(() -> NavigationCsvReader.read(nav4), nav4, 3, 2, "expected a number for 'lat', found '50.1.2'");
+        Path nav5 = file("nav5.csv", "lat,lon,time\n50,NaN,2026-05-14T09:15:00Z\n");
+        fails(() -> NavigationCsvReader.read(nav5), nav5, 2, 2, "expected a finite number for 'lon', found 'NaN'");
+        Path att4 = file("att4.csv", "time,heading,heave,roll,pitch\n2026-05-14T09:15:00Z,10,0.1,1,95\n");
+        fails(() -> AttitudeCsvReader.read(att4), att4, 2, 5, "expected pitch in [-90, 90] degrees, found 95");
+        Path att5 = file("att5.csv", "time,heading\n2026-05-14T09:15:00Z,\n");
+        fails(() -> AttitudeCsvReader.read(att5), att5, 2, 2, "expected a number for 'heading', found an empty field");
+        Path wl2 = file("wl2.csv", "time,height\n2026-05-14T09:00:00Z,1.2\n");
+        fails(() -> WaterLevelCsvReader.read(wl2), wl2, 1, 0, "expected a column 'level' in the header, found: time,height");
+        Path wl3 = file("wl3.csv", "time,level\n2026-05-14T09:10:00Z,1.2\n2026-05-14T09:00:00Z,1.3\n");
+        fails(() -> WaterLevelCsvReader.read(wl3), wl3, 3, 1, "expected times to increase strictly, found 2026-05-14T09:00:00Z after 2026-05-14T09:10:00.000Z");
+        Path wl4 = file("wl4.csv", "time,level\n2026-05-14T09:10:00Z,-inf\n");
+        fails(() -> WaterLevelCsvReader.read(wl4), wl4, 2, 2, "finite");
+        Path dup = file("dup.csv", "time,level,LEVEL\n");
+        fails(() -> WaterLevelCsvReader.read(dup), dup, 1, 3, "appears twice");
+        Path quoted = file("q.csv", "time,level\n\"2026-05-14T09:10:00Z\",\"1.5\"\n");
+        assertThat(WaterLevelCsvReader.read(quoted).series().value(0, 0)).isEqualTo(1.5);
+        Path bom = file("bom.csv", "\uFEFFtime,level\n2026-05-14T09:10:00Z,1.5\n");
+        assertThat(WaterLevelCsvReader.read(bom).size()).isEqualTo(1);
         Path empty = file("e.csv", "");
         fails(() -> WaterLevelCsvReader.read(empty), empty, 0, 0, "expected a header row");
         Path none = dir.resolve("absent.csv");
