@@ -26,10 +26,12 @@ import org.leadline.survey.Vessel;
  * series are NaN.
  *
  * <p><b>Speed and course over ground</b> come from the navigation (the separate series, else the
- * ping file's own positions, one per distinct ping time) by a central difference over a window W:
+ * ping file's own positions, one per distinct ping time, bridging gaps up to
+ * {@link #OWN_TRACK_MAX_GAP}) by a central difference over a window W:
  * the positions at t - W/2 and t + W/2 (clipped to the record) are turned into WGS84
  * earth-centred coordinates, their difference is projected onto the local east and north at the
- * mean position, speed = horizontal length / elapsed time and course = atan2(east, north). The
+ * mean position, speed = horizontal length / elapsed time and course = atan2(east, north); a window
+ * end beyond the record or inside a refused gap is moved to t (one-sided difference). The
  * chord differs from the arc by s^3/(24 R^2), under a micrometre for 100 m. Central differences
  * are the usual way to get speed from fixes (common practice); WGS84 to earth-centred coordinates
  * from NIMA TR8350.2 (3rd ed., 2000), eq. 4-14.
@@ -37,6 +39,12 @@ import org.leadline.survey.Vessel;
 public final class SensorMerge {
     /** Default window of the speed-over-ground central difference, s (common practice: a few fixes). */
     public static final double DEFAULT_SPEED_WINDOW = 5.0;
+
+    /**
+     * Longest gap between distinct ping times that the speed computation bridges on the ping
+     * file's own positions, s: a longer one is a break between lines, not a straight run.
+     */
+    public static final double OWN_TRACK_MAX_GAP = 60.0;
 
     private static final double A = 6378137.0, F = 1 / 298.257223563, E2 = F * (2 - F);
 
@@ -145,7 +153,7 @@ public final class SensorMerge {
             n++;
         }
         if (n < 2) return null;
-        return NavigationSeries.of(Arrays.copyOf(t, n), Arrays.copyOf(la, n), Arrays.copyOf(lo, n));
+        return NavigationSeries.of(Arrays.copyOf(t, n), Arrays.copyOf(la, n), Arrays.copyOf(lo, n)).withMaxGap(OWN_TRACK_MAX_GAP);
     }
 
     /**
@@ -161,7 +169,10 @@ public final class SensorMerge {
         double a = Math.max(s.first(), t - window / 2), b = Math.min(s.last(), t + window / 2);
         if (!(b > a)) return false;
         double[] p1 = new double[2], p2 = new double[2];
-        if (!track.position(a, p1) || !track.position(b, p2)) return false;
+        // a window end inside a refused gap falls back to t itself: one-sided next to the gap
+        if (!track.position(a, p1)) { a = t; track.position(a, p1); }
+        if (!track.position(b, p2)) { b = t; track.position(b, p2); }
+        if (!(b > a)) return false;
         double[] e1 = ecef(p1[0], p1[1]), e2 = ecef(p2[0], p2[1]);
         double dx = e2[0] - e1[0], dy = e2[1] - e1[1], dz = e2[2] - e1[2];
         // local east/north at the mean normal

@@ -125,5 +125,13 @@ class SensorMergeTest {
         assertThat(own.speedOverGround[20]).isCloseTo(V, within(1e-5));
         assertThat(own.courseOverGround[20]).isCloseTo(225.0, within(1e-4));
         assertThat(own.ok(20)).isTrue();
+        // two runs 10 minutes apart: the speed at the end of the first does not bridge the break
+        PingTable.Builder two = new PingTable.Builder();
+        for (int i = 0; i <= 10; i++) two.add(i, 0, Math.toDegrees(V * i / A), 0.02, Double.NaN, 0, Double.NaN, Double.NaN, Double.NaN, Double.NaN, "L1", 0, -1);
+        for (int i = 0; i <= 10; i++) two.add(600 + i, 0.01, 0.01 + Math.toDegrees(V * i / A), 0.02, Double.NaN, 0, Double.NaN, Double.NaN, Double.NaN, Double.NaN, "L2", 0, -1);
+        MergedPings br = SensorMerge.merge(two.build(), null, null, 0);
+        assertThat(br.speedOverGround[10]).isCloseTo(V, within(1e-5)); // one-sided at the end of L1
+        assertThat(br.speedOverGround[11]).isCloseTo(V, within(1e-5)); // one-sided at the start of L2
+        assertThat(br.courseOverGround[10]).isCloseTo(90.0, within(1e-4));
     }
 }
