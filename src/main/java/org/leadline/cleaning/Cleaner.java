@@ -136,20 +136,38 @@ public final class Cleaner {
         double[] work = new double[win];
         double[] resid = new double[win];
         int[] tmp = new int[0];
+        double[] lt = new double[0], ld = new double[0];
         boolean[] spike = new boolean[n];
         int untested = 0;
         double k = cfg.spikeK(), kTvu = cfg.spikeKTvu(), floor = cfg.spikeFloor();
         double[] time = s.time, depth = s.depth, tvu = s.tvu;
         for (int g = 0; g < groups; g++) {
             int from = start[g], to = start[g + 1], len = to - from;
-            if (!sortedByTime(order, from, to, time)) {
-                if (tmp.length < len) tmp = new int[len];
-                mergeSortByKey(order, from, to, time, tmp);
-            }
             int kn = Math.min(win, len - 1);
             if (kn < 4) {
                 untested += len;
                 continue;
+            }
+            // the series into contiguous arrays: one scattered read per sounding, not one per neighbour
+            if (lt.length < len) {
+                lt = new double[Math.max(len, 2 * lt.length)];
+                ld = new double[lt.length];
+            }
+            boolean sorted = true;
+            for (int p = 0; p < len; p++) {
+                int i = order[from + p];
+                lt[p] = time[i];
+                ld[p] = depth[i];
+                if (p > 0 && lt[p] < lt[p - 1]) sorted = false;
+            }
+            if (!sorted) {
+                if (tmp.length < len) tmp = new int[len];
+                mergeSortByKey(order, from, to, time, tmp);
+                for (int p = 0; p < len; p++) {
+                    int i = order[from + p];
+                    lt[p] = time[i];
+                    ld[p] = depth[i];
+                }
             }
             for (int p = 0; p < len; p++) {
                 int lo = p - half;
@@ -159,14 +177,12 @@ public final class Cleaner {
                     hi = len - 1;
                     lo = hi - kn;
                 }
-                int i = order[from + p];
-                double ti = time[i];
+                double ti = lt[p];
                 int c = 0;
                 for (int q = lo; q <= hi; q++) {
                     if (q == p) continue;
-                    int j = order[from + q];
-                    tScratch[c] = time[j] - ti;
-                    dScratch[c] = depth[j];
+                    tScratch[c] = lt[q] - ti;
+                    dScratch[c] = ld[q];
                     c++;
                 }
                 // local slope: median of slopes of pairs half a window apart (Theil-Sen on a fixed pairing)
@@ -179,11 +195,15 @@ public final class Cleaner {
                 for (int q = 0; q < c; q++) resid[q] = dScratch[q] - slope * tScratch[q];
                 System.arraycopy(resid, 0, work, 0, c);
                 double fit = median(work, c);
+                double dev = Math.abs(ld[p] - fit);
+                if (dev <= floor) continue; // cannot exceed any threshold: skip the MAD
+                int i = order[from + p];
+                double thr = floor;
+                if (Double.isFinite(tvu[i])) thr = Math.max(thr, kTvu * tvu[i]);
+                if (dev <= thr) continue;
                 for (int q = 0; q < c; q++) work[q] = Math.abs(resid[q] - fit);
                 double mad = median(work, c);
-                double thr = Math.max(k * MAD_TO_SIGMA * mad, floor);
-                if (Double.isFinite(tvu[i])) thr = Math.max(thr, kTvu * tvu[i]);
-                if (Math.abs(depth[i] - fit) > thr) spike[i] = true;
+                if (dev > Math.max(thr, k * MAD_TO_SIGMA * mad)) spike[i] = true;
             }
         }
         for (int i = 0; i < n; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
@@ -221,27 +241,32 @@ public final class Cleaner {
         cid = null;
         cand = null;
 
-        // cell medians: representative point (median easting, median northing, median depth)
+        // cell representative: (mean easting, mean northing, median depth), plus the mean TVU
         double[] ce = new double[cells], cn = new double[cells], cz = new double[cells], ct = new double[cells];
         boolean[] ok = new boolean[cells];
         double[] scratch = new double[64];
         for (int c = 0; c < cells; c++) {
             int from = start[c], len = start[c + 1] - from;
             if (scratch.length < len) scratch = new double[Math.max(len, scratch.length * 2)];
+            double se = 0, sn = 0, stv = 0;
             int nt = 0;
             for (int q = 0; q < len; q++) {
-                double v = s.tvu[order[from + q]];
-                if (Double.isFinite(v)) scratch[nt++] = v;
+                int i = order[from + q];
+                scratch[q] = s.depth[i];
+                se += s.easting[i];
+                sn += s.northing[i];
+                double v = s.tvu[i];
+                if (Double.isFinite(v)) {
+                    stv += v;
+                    nt++;
+                }
             }
-            ct[c] = nt > 0 ? median(scratch, nt) : Double.NaN;
+            ct[c] = nt > 0 ? stv / nt : Double.NaN;
             if (len < cfg.surfaceMinCount()) continue;
             ok[c] = true;
-            for (int q = 0; q < len; q++) scratch[q] = s.depth[order[from + q]];
             cz[c] = median(scratch, len);
-            for (int q = 0; q < len; q++) scratch[q] = s.easting[order[from + q]];
-            ce[c] = median(scratch, len);
-            for (int q = 0; q < len; q++) scratch[q] = s.northing[order[from + q]];
-            cn[c] = median(scratch, len);
+            ce[c] = se / len;
+            cn[c] = sn / len;
         }
 
         double[] px = new double[9], py = new double[9], pz = new double[9], w = new double[9];
@@ -394,11 +419,6 @@ public final class Cleaner {
         return out;
     }
 
-    static boolean sortedByTime(int[] idx, int from, int to, double[] key) {
-        for (int q = from + 1; q < to; q++) if (key[idx[q]] < key[idx[q - 1]]) return false;
-        return true;
-    }
-
     /** Stable merge sort of idx[from, to) by key[idx]. */
     static void mergeSortByKey(int[] idx, int from, int to, double[] key, int[] tmp) {
         int len = to - from;
@@ -419,17 +439,55 @@ public final class Cleaner {
 
     /** Median of a[0..len) (the mean of the two middle values for even len); reorders a. */
     static double median(double[] a, int len) {
-        if (len <= 32) {
+        int h = len >>> 1;
+        if (len <= 16) {
             for (int q = 1; q < len; q++) {
                 double v = a[q];
                 int r = q - 1;
                 while (r >= 0 && a[r] > v) { a[r + 1] = a[r]; r--; }
                 a[r + 1] = v;
             }
-        } else {
-            Arrays.sort(a, 0, len);
+            return (len & 1) == 1 ? a[h] : 0.5 * (a[h - 1] + a[h]);
         }
-        int h = len >>> 1;
-        return (len & 1) == 1 ? a[h] : 0.5 * (a[h - 1] + a[h]);
+        double hi = select(a, len, h);
+        if ((len & 1) == 1) return hi;
+        double lo = a[0]; // after select, a[0..h) holds the values below a[h]: take their maximum
+        for (int q = 1; q < h; q++) if (a[q] > lo) lo = a[q];
+        return 0.5 * (lo + hi);
+    }
+
+    /**
+     * The k-th smallest of a[0..len) by Hoare's selection (Hoare 1961, "Algorithm 65: Find",
+     * Commun. ACM 4:321) with a median-of-three pivot; leaves smaller values before index k.
+     */
+    static double select(double[] a, int len, int k) {
+        int lo = 0, hi = len - 1;
+        while (hi > lo) {
+            int mid = (lo + hi) >>> 1;
+            if (a[mid] < a[lo]) swap(a, mid, lo);
+            if (a[hi] < a[lo]) swap(a, hi, lo);
+            if (a[hi] < a[mid]) swap(a, hi, mid);
+            double pivot = a[mid];
+            int i = lo, j = hi;
+            while (i <= j) {
+                while (a[i] < pivot) i++;
+                while (a[j] > pivot) j--;
+                if (i <= j) {
+                    swap(a, i, j);
+                    i++;
+                    j--;
+                }
+            }
+            if (k <= j) hi = j;
+            else if (k >= i) lo = i;
+            else return a[k];
+        }
+        return a[k];
+    }
+
+    private static void swap(double[] a, int i, int j) {
+        double t = a[i];
+        a[i] = a[j];
+        a[j] = t;
     }
 }

@@ -136,5 +136,12 @@ class CleanerTest {
         double[] big = new double[101];
         for (int i = 0; i < big.length; i++) big[i] = (i * 37) % 101;
         assertThat(Cleaner.median(big, 101)).isEqualTo(50);
+        double[] even = new double[100];
+        for (int i = 0; i < even.length; i++) even[i] = (i * 37) % 100; // a permutation of 0..99
+        assertThat(Cleaner.median(even, 100)).isEqualTo(49.5);
+        double[] ties = new double[40];
+        java.util.Arrays.fill(ties, 7);
+        ties[3] = -1;
+        assertThat(Cleaner.median(ties, 40)).isEqualTo(7);
     }
 }
