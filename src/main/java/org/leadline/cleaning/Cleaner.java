@@ -18,8 +18,9 @@ import java.util.Map;
  *     ({@link Reason#DEPTH_GATE}; a NaN depth is {@link Reason#NO_RETURN});</li>
  * <li>along-track spike filter: a Hampel filter (Hampel 1974; Pearson et al. 2016, "Generalized
  *     Hampel filters", EURASIP J. Adv. Signal Process. 2016:87, doi:10.1186/s13634-016-0383-6)
- *     made robust on slopes: in each along-track series (one line and one beam, or one launch-angle
- *     band, or the whole line for a single beam), in time order, the N neighbours of a sounding are
+ *     made robust on slopes: in each along-track series (one line and one beam; without beam numbers
+ *     the rank of the launch angle within the ping, or a launch-angle band; the whole line for a
+ *     single beam), in time order, the N neighbours of a sounding are
  *     detrended with a median-of-pair-slopes line (the Theil-Sen estimator, Sen 1968, on pairs half
  *     a window apart), and the sounding is rejected ({@link Reason#SPIKE}) when it differs from the
  *     median of the detrended neighbours by more than
@@ -110,17 +111,13 @@ public final class Cleaner {
                 cand[m++] = i;
             }
         }
-        // number the series: (line, beam) or (line, launch-angle band); the whole line for a single beam
+        // number the series: (line, beam); the whole line for a single beam
+        int[] beamKey = seriesBeamKeys(s, Math.toRadians(cfg.spikeAngleBand()));
         LongIntMap ids = new LongIntMap(1024);
         int[] gid = new int[m];
-        double bandRad = Math.toRadians(cfg.spikeAngleBand());
         for (int k = 0; k < m; k++) {
             int i = cand[k];
-            int sub;
-            if (s.beam[i] >= 0) sub = s.beam[i];
-            else if (Double.isFinite(s.launchAngle[i])) sub = (1 << 30) + (int) Math.floor(s.launchAngle[i] / bandRad + 0.5);
-            else sub = -1;
-            long key = ((long) (s.line[i] + 1) << 32) | (sub & 0xffffffffL);
+            long key = ((long) (s.line[i] + 1) << 32) | (beamKey[i] & 0xffffffffL);
             gid[k] = ids.putIfAbsent(key, ids.size());
         }
         int groups = ids.size();
@@ -208,6 +205,46 @@ public final class Cleaner {
         }
         for (int i = 0; i < n; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
         return untested;
+    }
+
+    /**
+     * The beam part of each sounding's series key: the beam number when given; otherwise, for a
+     * ping whose soundings are consecutive rows (same line and time) with launch angles, the rank
+     * of the sounding's angle within the ping (a beam number the sounder did not write); otherwise
+     * the launch-angle band round(angle / band); -1 (the whole line) without an angle.
+     */
+    static int[] seriesBeamKeys(SoundingTable s, double bandRad) {
+        int n = s.size;
+        int[] key = new int[n];
+        int[] run = new int[16];
+        int i = 0;
+        while (i < n) {
+            int j = i + 1;
+            while (j < n && s.line[j] == s.line[i] && s.time[j] == s.time[i]) j++;
+            int len = 0;
+            for (int q = i; q < j; q++) {
+                if (s.beam[q] >= 0) key[q] = s.beam[q];
+                else if (!Double.isFinite(s.launchAngle[q])) key[q] = -1;
+                else {
+                    key[q] = (1 << 30) + (int) Math.floor(s.launchAngle[q] / bandRad + 0.5);
+                    if (len == run.length) run = Arrays.copyOf(run, 2 * len);
+                    run[len++] = q;
+                }
+            }
+            if (len > 1) {
+                // rank by angle: insertion sort, linear for pings already in angle order
+                double[] ang = s.launchAngle;
+                for (int a = 1; a < len; a++) {
+                    int v = run[a];
+                    int b = a - 1;
+                    while (b >= 0 && ang[run[b]] > ang[v]) { run[b + 1] = run[b]; b--; }
+                    run[b + 1] = v;
+                }
+                for (int a = 0; a < len; a++) key[run[a]] = (1 << 29) + a;
+            }
+            i = j;
+        }
+        return key;
     }
 
     // ------------------------------------------------------------------ surface filter

@@ -24,7 +24,8 @@ import java.util.Set;
  * @param spikeFloor     smallest spike threshold, m, used when TVU is unknown and MAD is zero
  *                       (quantised depths) (default 0.1 m)
  * @param spikeAngleBand width of the launch-angle bands, degrees, that form along-track series
- *                       for swath soundings that carry no beam number (default 5 deg)
+ *                       for soundings with no beam number that are not stored ping by ping
+ *                       (default 5 deg; see {@link Cleaner#seriesBeamKeys})
  * @param surfaceK       surface filter: reject when |depth - provisional surface| &gt; surfaceK * TVU
  *                       (default 2.5)
  * @param surfaceCell    cell size of the provisional surface, m (default 5 m)

@@ -50,6 +50,40 @@ class CleanerTest {
         assertThat(r[1]).isLessThanOrEqualTo(0.005);
     }
 
+    /** A swath that gives no beam numbers: series by the rank of the angle within each ping. */
+    @ParameterizedTest(name = "{0} ground")
+    @CsvSource({"flat, 31", "slope, 32"})
+    void swathWithoutBeamNumbersUsesAngleBands(String ground, long seed) {
+        DoubleBinaryOperator g = ground.equals("flat") ? (e, n) -> 25.0 : (e, n) -> 20.0 + 0.2 * e;
+        SyntheticSurvey sv = SyntheticSurvey.make(g, 64, 4, 300, seed);
+        java.util.Arrays.fill(sv.table.beam, -1);
+        CleaningStats st = Cleaner.clean(sv.table, null, CleaningSettings.defaults());
+        double[] r = sv.rates();
+        System.out.printf("no beam numbers (angle rank), %s ground: spikes rejected %.2f %%, good rejected %.3f %%; %s%n",
+                ground, 100 * r[0], 100 * r[1], st.rejected());
+        assertThat(r[0]).isGreaterThanOrEqualTo(0.98);
+        assertThat(r[1]).isLessThanOrEqualTo(0.005);
+    }
+
+    /** Beam keys worked by hand: a 3-sounding ping out of angle order, then a lone sounding with an angle. */
+    @Test
+    void beamKeysWithoutBeamNumbers() {
+        SoundingTable s = new SoundingTable(5, List.of("A"));
+        double[] t = {1, 1, 1, 2, 3};
+        double[] ang = {0.2, -0.4, 0.0, Math.toRadians(12.4), Double.NaN};
+        for (int i = 0; i < 5; i++) {
+            s.time[i] = t[i];
+            s.beam[i] = -1;
+            s.launchAngle[i] = ang[i];
+        }
+        int[] k = Cleaner.seriesBeamKeys(s, Math.toRadians(5));
+        assertThat(k[0]).isEqualTo((1 << 29) + 2);
+        assertThat(k[1]).isEqualTo((1 << 29));
+        assertThat(k[2]).isEqualTo((1 << 29) + 1);
+        assertThat(k[3]).isEqualTo((1 << 30) + 2); // round(12.4 / 5) = 2
+        assertThat(k[4]).isEqualTo(-1);
+    }
+
     @Test
     void surfaceFilterAloneCatchesSpikesOnSlope() {
         SyntheticSurvey sv = SyntheticSurvey.make((e, n) -> 20.0 + 0.2 * e, 64, 4, 300, 22);

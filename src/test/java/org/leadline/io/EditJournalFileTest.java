@@ -145,6 +145,60 @@ class EditJournalFileTest {
                 e -> assertThat(e.line()).isEqualTo(3));
     }
 
+    /** A long random session written to disk and read back replays to exactly the same statuses. */
+    @Test
+    void replayFromTheFileReproducesEveryStatus() throws IOException {
+        int n = 3000;
+        org.leadline.survey.SoundingTable base = new org.leadline.survey.SoundingTable(n, List.of("L1", "L2"));
+        java.util.Random rnd = new java.util.Random(7);
+        for (int i = 0; i < n; i++) {
+            base.time[i] = 1.7e9 + 0.37 * (i / 10) + 1e-3 * rnd.nextDouble(); // irregular ping times
+            base.line[i] = i < n / 2 ? 0 : 1;
+            base.beam[i] = i % 10;
+            if (rnd.nextInt(20) == 0) base.reject(i, org.leadline.survey.SoundingTable.Reason.SPIKE);
+        }
+        List<Edit> edits = new ArrayList<>();
+        for (int k = 1; k <= 400; k++) {
+            int r = rnd.nextInt(10);
+            Action a = r < 4 ? Action.REJECT : r < 6 ? Action.RESTORE : r < 8 ? Action.UNDO : Action.REDO;
+            Edit.Selection sel = null;
+            if (a == Action.REJECT || a == Action.RESTORE) {
+                int i = rnd.nextInt(n);
+                if (rnd.nextBoolean()) {
+                    int[] ids = new int[1 + rnd.nextInt(30)];
+                    for (int q = 0; q < ids.length; q++) ids[q] = Math.min(n - 1, i + rnd.nextInt(80));
+                    sel = Ids.of(ids);
+                } else {
+                    int j = Math.min(n - 1, i + rnd.nextInt(200));
+                    sel = new Window(base.lineName(i), base.time[i], Math.max(base.time[i], base.time[j]), 2, 7);
+                }
+            }
+            edits.add(new Edit(k, 1.7e9 + 3600 + k * 1.001, "r\\x" + (k % 3), a, sel, r == 0 ? "tab\there" : ""));
+        }
+        Path p = dir.resolve("session.journal");
+        try (EditJournalFile j = EditJournalFile.open(p)) {
+            for (Edit e : edits) j.append(e);
+        }
+        List<Edit> back = EditJournalFile.read(p).edits();
+        assertThat(back).isEqualTo(edits);
+        org.leadline.survey.SoundingTable a = copy(base), b = copy(base);
+        int changed = org.leadline.cleaning.EditJournal.apply(a, edits);
+        org.leadline.cleaning.EditJournal.apply(b, back);
+        assertThat(changed).isGreaterThan(0);
+        assertThat(b.status).isEqualTo(a.status);
+        assertThat(b.reason).isEqualTo(a.reason);
+    }
+
+    private static org.leadline.survey.SoundingTable copy(org.leadline.survey.SoundingTable t) {
+        org.leadline.survey.SoundingTable s = new org.leadline.survey.SoundingTable(t.size, t.lineNames());
+        System.arraycopy(t.time, 0, s.time, 0, t.size);
+        System.arraycopy(t.line, 0, s.line, 0, t.size);
+        System.arraycopy(t.beam, 0, s.beam, 0, t.size);
+        System.arraycopy(t.status, 0, s.status, 0, t.size);
+        System.arraycopy(t.reason, 0, s.reason, 0, t.size);
+        return s;
+    }
+
     @Test
     void missingJournalHasNoEditsAndBesideProjectNamesIt() throws IOException {
         assertThat(EditJournalFile.read(dir.resolve("none.journal")).edits()).isEmpty();
