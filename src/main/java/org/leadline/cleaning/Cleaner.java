@@ -28,10 +28,10 @@ import java.util.Map;
  *     absolute deviation a consistent estimate of a normal standard deviation (Rousseeuw and Croux
  *     1993, JASA 88:1273, doi:10.1080/01621459.1993.10476408);</li>
  * <li>surface filter: a provisional surface of cell medians on a {@code surface_cell} grid,
- *     each cell refined by a plane fitted to its 3 x 3 neighbourhood (least squares, replaced by an
- *     exhaustive consensus search when a cell median is off the plane by more than
- *     {@code surface_k} times the cell's median TVU; intercept by median); a sounding deviating from it by more than {@code surface_k * TVU}
- *     is rejected ({@link Reason#SURFACE}).</li>
+ *     each cell refined by a plane fitted to its 3 x 3 neighbourhood (least squares, replaced by
+ *     an exhaustive consensus search, after RANSAC, when a cell median is off the plane by more
+ *     than {@code surface_k} times the cell's mean TVU; intercept by median); a sounding deviating
+ *     from it by more than {@code surface_k * TVU} is rejected ({@link Reason#SURFACE}).</li>
  * </ol>
  * Full rules: docs/science/cleaning.md. Filters change only the status and reason columns.
  *

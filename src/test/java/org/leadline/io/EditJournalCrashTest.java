@@ -77,6 +77,15 @@ class EditJournalCrashTest {
         assertThat(c.warnings()).hasSizeLessThanOrEqualTo(1);
         c.warnings().forEach(w -> assertThat(w).contains("last line"));
 
+        // a power loss can also leave half a line: simulate one and read again
+        String half = EditJournalFile.format(new Edit(seqs.size() + 1L, 1.8e9, "child", Action.REJECT,
+                org.leadline.cleaning.Edit.Ids.of(1, 2, 3), "in flight"));
+        java.nio.file.Files.write(journal, half.substring(0, half.length() / 2).getBytes(StandardCharsets.UTF_8),
+                java.nio.file.StandardOpenOption.APPEND);
+        EditJournalFile.Contents torn = EditJournalFile.read(journal);
+        assertThat(torn.edits()).isEqualTo(c.edits());
+        assertThat(torn.warnings()).singleElement().asString().contains("incomplete last line");
+
         // replay works on what survived, and the journal can be continued
         SoundingTable s = new SoundingTable(soundings, List.of("L1"));
         s.reject(3, Reason.SPIKE);
