@@ -42,12 +42,12 @@ class EditJournalCrashTest {
     void everyReportedEditSurvivesSigkill() throws Exception {
         Path journal = dir.resolve("crash.journal");
         int soundings = 2000;
-        String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        String javaBin = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         Set<String> cp = new LinkedHashSet<>();
         cp.add(Path.of(JournalCrashChild.class.getProtectionDomain().getCodeSource().getLocation().toURI()).toString());
         cp.add(Path.of(EditJournalFile.class.getProtectionDomain().getCodeSource().getLocation().toURI()).toString());
         for (String s : System.getProperty("java.class.path").split(File.pathSeparator)) if (!s.isEmpty()) cp.add(s);
-        ProcessBuilder pb = new ProcessBuilder(java, "-Xmx64m", "-cp", String.join(File.pathSeparator, cp),
+        ProcessBuilder pb = new ProcessBuilder(javaBin, "-Xmx64m", "-cp", String.join(File.pathSeparator, cp),
                 JournalCrashChild.class.getName(), journal.toString(), String.valueOf(soundings), "4242");
         pb.redirectError(ProcessBuilder.Redirect.DISCARD);
         // stdout goes to a file: Process.destroyForcibly() closes the pipes, and the reports the
