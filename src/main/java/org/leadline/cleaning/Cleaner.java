@@ -1,0 +1,530 @@
+package org.leadline.cleaning;
+
+import org.leadline.cleaning.CleaningSettings.Filter;
+import org.leadline.survey.SoundingTable;
+import org.leadline.survey.SoundingTable.Reason;
+import org.leadline.survey.SoundingTable.Status;
+
+import java.util.Arrays;
+import java.util.EnumMap;
+import java.util.Map;
+
+/**
+ * Automatic cleaning of reduced soundings: four filters, run in this order, each rejecting only
+ * soundings still accepted and recording its {@link Reason}:
+ * <ol>
+ * <li>sounder quality: the sounder's own quality value below {@code min_quality} ({@link Reason#QUALITY});</li>
+ * <li>depth gates: depth below the water surface outside [{@code min_depth}, {@code max_depth}]
+ *     ({@link Reason#DEPTH_GATE}; a NaN depth is {@link Reason#NO_RETURN});</li>
+ * <li>along-track spike filter: a Hampel filter (Hampel 1974; Pearson et al. 2016, "Generalized
+ *     Hampel filters", EURASIP J. Adv. Signal Process. 2016:87, doi:10.1186/s13634-016-0383-6)
+ *     made robust on slopes: in each along-track series (one line and one beam; without beam numbers
+ *     the rank of the launch angle within the ping, or a launch-angle band; the whole line for a
+ *     single beam), in time order, the N neighbours of a sounding are
+ *     detrended with a median-of-pair-slopes line (the Theil-Sen estimator, Sen 1968, on pairs half
+ *     a window apart), and the sounding is rejected ({@link Reason#SPIKE}) when it differs from the
+ *     median of the detrended neighbours by more than
+ *     {@code max(spike_k * 1.4826 * MAD, spike_k_tvu * TVU, spike_floor)}; 1.4826 makes the median
+ *     absolute deviation a consistent estimate of a normal standard deviation (Rousseeuw and Croux
+ *     1993, JASA 88:1273, doi:10.1080/01621459.1993.10476408);</li>
+ * <li>surface filter: a provisional surface of cell medians on a {@code surface_cell} grid,
+ *     each cell refined by a plane fitted to its 3 x 3 neighbourhood (least squares, replaced by
+ *     an exhaustive consensus search, after RANSAC, when a cell median is off the plane by more
+ *     than {@code surface_k} times the cell's mean TVU; intercept by median); a sounding deviating
+ *     from it by more than {@code surface_k * TVU} is rejected ({@link Reason#SURFACE}).</li>
+ * </ol>
+ * Full rules: docs/science/cleaning.md. Filters change only the status and reason columns.
+ *
+ * <p>Cost: linear in the soundings apart from small fixed-size sorts (series and cells are
+ * formed by counting sorts over primitive arrays, no boxing). Pure: no I/O.
+ *
+ * <pre>{@code
+ * CleaningStats st = Cleaner.clean(soundings, pings.quality, CleaningSettings.defaults());
+ * }</pre>
+ */
+public final class Cleaner {
+    private static final double MAD_TO_SIGMA = 1.4826;
+
+    private Cleaner() {}
+
+    /**
+     * Runs the enabled filters over the accepted soundings of {@code s}, in place.
+     *
+     * @param s       reduced soundings (depth, surfaceDepth, time, line, beam, launchAngle,
+     *                easting, northing and tvu are read; status and reason are written)
+     * @param quality sounder quality per sounding (same rows; -1 or any negative value = not
+     *                given), or null when the sounder gave none
+     * @param cfg     settings
+     * @return rejections per reason
+     */
+    public static CleaningStats clean(SoundingTable s, int[] quality, CleaningSettings cfg) {
+        if (quality != null && quality.length != s.size) {
+            throw new IllegalArgumentException("quality has " + quality.length + " rows, soundings " + s.size);
+        }
+        int before = s.countAccepted();
+        int[] counts = new int[256];
+        if (cfg.enabled(Filter.QUALITY) && quality != null) qualityGate(s, quality, cfg.minQuality(), counts);
+        if (cfg.enabled(Filter.DEPTH_GATE)) depthGate(s, cfg.minDepth(), cfg.maxDepth(), counts);
+        int untestedSpike = 0, untestedSurface = 0;
+        if (cfg.enabled(Filter.SPIKE)) untestedSpike = spikeFilter(s, cfg, counts);
+        if (cfg.enabled(Filter.SURFACE)) untestedSurface = surfaceFilter(s, cfg, counts);
+        Map<Reason, Integer> byReason = new EnumMap<>(Reason.class);
+        for (Reason r : Reason.values()) if (counts[r.code & 0xff] > 0) byReason.put(r, counts[r.code & 0xff]);
+        return new CleaningStats(s.size, before, s.countAccepted(), byReason, untestedSpike, untestedSurface);
+    }
+
+    private static void reject(SoundingTable s, int i, Reason r, int[] counts) {
+        if (s.status[i] == Status.ACCEPTED.code) {
+            s.reject(i, r);
+            counts[r.code & 0xff]++;
+        }
+    }
+
+    static void qualityGate(SoundingTable s, int[] quality, int minQuality, int[] counts) {
+        for (int i = 0; i < s.size; i++) {
+            if (quality[i] >= 0 && quality[i] < minQuality) reject(s, i, Reason.QUALITY, counts);
+        }
+    }
+
+    /** Depth gate on the depth below the water surface (the reduced depth when that is unknown). */
+    static void depthGate(SoundingTable s, double min, double max, int[] counts) {
+        for (int i = 0; i < s.size; i++) {
+            if (s.status[i] != Status.ACCEPTED.code) continue;
+            if (Double.isNaN(s.depth[i])) {
+                reject(s, i, Reason.NO_RETURN, counts);
+                continue;
+            }
+            double d = Double.isFinite(s.surfaceDepth[i]) ? s.surfaceDepth[i] : s.depth[i];
+            if (!(d >= min && d <= max)) reject(s, i, Reason.DEPTH_GATE, counts);
+        }
+    }
+
+    // ------------------------------------------------------------------ along-track spike filter
+
+    /** Returns the number of accepted soundings that could not be tested (series too short). */
+    static int spikeFilter(SoundingTable s, CleaningSettings cfg, int[] counts) {
+        int n = s.size;
+        int m = 0;
+        int[] cand = new int[n];
+        for (int i = 0; i < n; i++) {
+            if (s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i]) && Double.isFinite(s.time[i])) {
+                cand[m++] = i;
+            }
+        }
+        // number the series: (line, beam); the whole line for a single beam
+        int[] beamKey = seriesBeamKeys(s, Math.toRadians(cfg.spikeAngleBand()));
+        LongIntMap ids = new LongIntMap(1024);
+        int[] gid = new int[m];
+        for (int k = 0; k < m; k++) {
+            int i = cand[k];
+            long key = ((long) (s.line[i] + 1) << 32) | (beamKey[i] & 0xffffffffL);
+            gid[k] = ids.putIfAbsent(key, ids.size());
+        }
+        int groups = ids.size();
+        int[] start = new int[groups + 1];
+        int[] order = countingSort(cand, gid, m, groups, start);
+        gid = null;
+        cand = null;
+
+        int win = cfg.spikeWindow();
+        int half = win / 2;
+        double[] tScratch = new double[win];
+        double[] dScratch = new double[win];
+        double[] work = new double[win];
+        double[] resid = new double[win];
+        int[] tmp = new int[0];
+        double[] lt = new double[0], ld = new double[0];
+        boolean[] spike = new boolean[n];
+        int untested = 0;
+        double k = cfg.spikeK(), kTvu = cfg.spikeKTvu(), floor = cfg.spikeFloor();
+        double[] time = s.time, depth = s.depth, tvu = s.tvu;
+        for (int g = 0; g < groups; g++) {
+            int from = start[g], to = start[g + 1], len = to - from;
+            int kn = Math.min(win, len - 1);
+            if (kn < 4) {
+                untested += len;
+                continue;
+            }
+            // the series into contiguous arrays: one scattered read per sounding, not one per neighbour
+            if (lt.length < len) {
+                lt = new double[Math.max(len, 2 * lt.length)];
+                ld = new double[lt.length];
+            }
+            boolean sorted = true;
+            for (int p = 0; p < len; p++) {
+                int i = order[from + p];
+                lt[p] = time[i];
+                ld[p] = depth[i];
+                if (p > 0 && lt[p] < lt[p - 1]) sorted = false;
+            }
+            if (!sorted) {
+                if (tmp.length < len) tmp = new int[len];
+                mergeSortByKey(order, from, to, time, tmp);
+                for (int p = 0; p < len; p++) {
+                    int i = order[from + p];
+                    lt[p] = time[i];
+                    ld[p] = depth[i];
+                }
+            }
+            for (int p = 0; p < len; p++) {
+                int lo = p - half;
+                if (lo < 0) lo = 0;
+                int hi = lo + kn;
+                if (hi > len - 1) {
+                    hi = len - 1;
+                    lo = hi - kn;
+                }
+                double ti = lt[p];
+                int c = 0;
+                for (int q = lo; q <= hi; q++) {
+                    if (q == p) continue;
+                    tScratch[c] = lt[q] - ti;
+                    dScratch[c] = ld[q];
+                    c++;
+                }
+                // local slope: median of slopes of pairs half a window apart (Theil-Sen on a fixed pairing)
+                int h = c / 2, ns = 0;
+                for (int q = 0; q + h < c; q++) {
+                    double dt = tScratch[q + h] - tScratch[q];
+                    if (dt != 0) work[ns++] = (dScratch[q + h] - dScratch[q]) / dt;
+                }
+                double slope = ns > 0 ? median(work, ns) : 0;
+                for (int q = 0; q < c; q++) resid[q] = dScratch[q] - slope * tScratch[q];
+                System.arraycopy(resid, 0, work, 0, c);
+                double fit = median(work, c);
+                double dev = Math.abs(ld[p] - fit);
+                if (dev <= floor) continue; // cannot exceed any threshold: skip the MAD
+                int i = order[from + p];
+                double thr = floor;
+                if (Double.isFinite(tvu[i])) thr = Math.max(thr, kTvu * tvu[i]);
+                if (dev <= thr) continue;
+                for (int q = 0; q < c; q++) work[q] = Math.abs(resid[q] - fit);
+                double mad = median(work, c);
+                if (dev > Math.max(thr, k * MAD_TO_SIGMA * mad)) spike[i] = true;
+            }
+        }
+        for (int i = 0; i < n; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
+        return untested;
+    }
+
+    /**
+     * The beam part of each sounding's series key: the beam number when given; otherwise, for a
+     * ping whose soundings are consecutive rows (same line and time) with launch angles, the rank
+     * of the sounding's angle within the ping (a beam number the sounder did not write); otherwise
+     * the launch-angle band round(angle / band); -1 (the whole line) without an angle.
+     */
+    static int[] seriesBeamKeys(SoundingTable s, double bandRad) {
+        int n = s.size;
+        int[] key = new int[n];
+        int[] run = new int[16];
+        int i = 0;
+        while (i < n) {
+            int j = i + 1;
+            while (j < n && s.line[j] == s.line[i] && s.time[j] == s.time[i]) j++;
+            int len = 0;
+            for (int q = i; q < j; q++) {
+                if (s.beam[q] >= 0) key[q] = s.beam[q];
+                else if (!Double.isFinite(s.launchAngle[q])) key[q] = -1;
+                else {
+                    key[q] = (1 << 30) + (int) Math.floor(s.launchAngle[q] / bandRad + 0.5);
+                    if (len == run.length) run = Arrays.copyOf(run, 2 * len);
+                    run[len++] = q;
+                }
+            }
+            if (len > 1) {
+                // rank by angle: insertion sort, linear for pings already in angle order
+                double[] ang = s.launchAngle;
+                for (int a = 1; a < len; a++) {
+                    int v = run[a];
+                    int b = a - 1;
+                    while (b >= 0 && ang[run[b]] > ang[v]) { run[b + 1] = run[b]; b--; }
+                    run[b + 1] = v;
+                }
+                for (int a = 0; a < len; a++) key[run[a]] = (1 << 29) + a;
+            }
+            i = j;
+        }
+        return key;
+    }
+
+    // ------------------------------------------------------------------ surface filter
+
+    /** Returns the number of accepted soundings that could not be tested. */
+    static int surfaceFilter(SoundingTable s, CleaningSettings cfg, int[] counts) {
+        int n = s.size;
+        double cell = cfg.surfaceCell();
+        int m = 0;
+        int[] cand = new int[n];
+        int untested = 0;
+        for (int i = 0; i < n; i++) {
+            if (s.status[i] != Status.ACCEPTED.code) continue;
+            if (Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i])) cand[m++] = i;
+            else untested++;
+        }
+        LongIntMap ids = new LongIntMap(Math.max(16, m / 8));
+        int[] cid = new int[m];
+        long[] cellKeys = new long[Math.max(16, m / 8)];
+        for (int q = 0; q < m; q++) {
+            int i = cand[q];
+            long key = cellKey(cellIndex(s.easting[i], cell), cellIndex(s.northing[i], cell));
+            int id = ids.putIfAbsent(key, ids.size());
+            if (id == cellKeys.length) cellKeys = Arrays.copyOf(cellKeys, cellKeys.length * 2);
+            cellKeys[id] = key;
+            cid[q] = id;
+        }
+        int cells = ids.size();
+        int[] start = new int[cells + 1];
+        int[] order = countingSort(cand, cid, m, cells, start);
+        cid = null;
+        cand = null;
+
+        // cell representative: (mean easting, mean northing, median depth), plus the mean TVU
+        double[] ce = new double[cells], cn = new double[cells], cz = new double[cells], ct = new double[cells];
+        boolean[] ok = new boolean[cells];
+        double[] scratch = new double[64];
+        for (int c = 0; c < cells; c++) {
+            int from = start[c], len = start[c + 1] - from;
+            if (scratch.length < len) scratch = new double[Math.max(len, scratch.length * 2)];
+            double se = 0, sn = 0, stv = 0;
+            int nt = 0;
+            for (int q = 0; q < len; q++) {
+                int i = order[from + q];
+                scratch[q] = s.depth[i];
+                se += s.easting[i];
+                sn += s.northing[i];
+                double v = s.tvu[i];
+                if (Double.isFinite(v)) {
+                    stv += v;
+                    nt++;
+                }
+            }
+            ct[c] = nt > 0 ? stv / nt : Double.NaN;
+            if (len < cfg.surfaceMinCount()) continue;
+            ok[c] = true;
+            cz[c] = median(scratch, len);
+            ce[c] = se / len;
+            cn[c] = sn / len;
+        }
+
+        double[] px = new double[9], py = new double[9], pz = new double[9], w = new double[9];
+        double[] plane = new double[3];
+        boolean[] rejectIt = new boolean[n];
+        double kS = cfg.surfaceK();
+        for (int c = 0; c < cells; c++) {
+            long key = cellKeys[c];
+            int cx = (int) (key >> 32), cy = (int) key;
+            double e0 = (cx + 0.5) * cell, n0 = (cy + 0.5) * cell;
+            int np = 0;
+            for (int dx = -1; dx <= 1; dx++) {
+                for (int dy = -1; dy <= 1; dy++) {
+                    int o = ids.get(cellKey(cx + dx, cy + dy));
+                    if (o >= 0 && ok[o]) {
+                        px[np] = ce[o] - e0;
+                        py[np] = cn[o] - n0;
+                        pz[np] = cz[o];
+                        np++;
+                    }
+                }
+            }
+            int from = start[c], to = start[c + 1];
+            if (np == 0 || !Double.isFinite(ct[c])) {
+                untested += to - from;
+                continue;
+            }
+            fitPlane(px, py, pz, np, kS * ct[c], w, plane);
+            double a = plane[0], bx = plane[1], by = plane[2];
+            for (int q = from; q < to; q++) {
+                int i = order[q];
+                if (!Double.isFinite(s.tvu[i])) {
+                    untested++;
+                    continue;
+                }
+                double surf = a + bx * (s.easting[i] - e0) + by * (s.northing[i] - n0);
+                if (Math.abs(s.depth[i] - surf) > kS * s.tvu[i]) rejectIt[i] = true;
+            }
+        }
+        for (int i = 0; i < n; i++) if (rejectIt[i]) reject(s, i, Reason.SURFACE, counts);
+        return untested;
+    }
+
+    static int cellIndex(double v, double cell) { return (int) Math.floor(v / cell); }
+
+    static long cellKey(int cx, int cy) { return ((long) cx << 32) | (cy & 0xffffffffL); }
+
+    /**
+     * Plane z = a + bx*x + by*y through np cell medians (coordinates relative to the evaluation
+     * cell's centre). First least squares on centred coordinates (a small ridge keeps the slope
+     * across a single row of cells at zero); when some cell median is off that plane by more than
+     * tol, an exhaustive consensus search replaces it: every plane through three medians, every
+     * line through two (no slope across it) and every level plane through one is scored by how
+     * many medians lie within tol of it (the consensus rule of RANSAC, Fischler and Bolles 1981,
+     * Commun. ACM 24:381, doi:10.1145/358669.358692, here exhaustive over at most 9 points); ties
+     * go to the flatter plane. Least squares is then refitted on the medians within tol. The
+     * intercept is the median of the kept medians moved along the plane to the origin.
+     * Result in out = {a, bx, by}.
+     */
+    static void fitPlane(double[] x, double[] y, double[] z, int np, double tol, double[] w, double[] out) {
+        boolean[] keep = new boolean[np];
+        Arrays.fill(keep, true);
+        lsSlopes(x, y, z, np, keep, out);
+        if (np >= 2 && maxResidual(x, y, z, np, keep, out) > tol) {
+            double bestA = 0, bestBx = 0, bestBy = 0, bestG = Double.POSITIVE_INFINITY;
+            int bestCount = -1;
+            for (int j = 0; j < np; j++) {
+                for (int k = j; k < np; k++) {
+                    for (int l = k; l < np; l++) {
+                        double bx, by;
+                        if (k == j) { // level plane through j (visited once: l == k == j)
+                            if (l != j) continue;
+                            bx = 0;
+                            by = 0;
+                        } else if (l == k) { // line through j and k, no slope across it
+                            double dx = x[k] - x[j], dy = y[k] - y[j], l2 = dx * dx + dy * dy;
+                            if (l2 == 0) continue;
+                            double g = (z[k] - z[j]) / l2;
+                            bx = g * dx;
+                            by = g * dy;
+                        } else { // plane through j, k, l
+                            double ux = x[k] - x[j], uy = y[k] - y[j], uz = z[k] - z[j];
+                            double vx = x[l] - x[j], vy = y[l] - y[j], vz = z[l] - z[j];
+                            double nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx;
+                            if (Math.abs(nz) <= 1e-3 * Math.hypot(ux, uy) * Math.hypot(vx, vy)) continue; // near collinear
+                            bx = -nx / nz;
+                            by = -ny / nz;
+                        }
+                        double a = z[j] - bx * x[j] - by * y[j];
+                        int count = 0;
+                        for (int q = 0; q < np; q++) if (Math.abs(z[q] - a - bx * x[q] - by * y[q]) <= tol) count++;
+                        double g2 = bx * bx + by * by;
+                        if (count > bestCount || (count == bestCount && g2 < bestG)) {
+                            bestCount = count; bestG = g2; bestA = a; bestBx = bx; bestBy = by;
+                        }
+                    }
+                }
+            }
+            for (int q = 0; q < np; q++) keep[q] = Math.abs(z[q] - bestA - bestBx * x[q] - bestBy * y[q]) <= tol;
+            lsSlopes(x, y, z, np, keep, out);
+        }
+        int c = 0;
+        for (int q = 0; q < np; q++) if (keep[q]) w[c++] = z[q] - out[1] * x[q] - out[2] * y[q];
+        out[0] = median(w, c);
+    }
+
+    private static double maxResidual(double[] x, double[] y, double[] z, int np, boolean[] keep, double[] slopes) {
+        double xm = 0, ym = 0, zm = 0;
+        int c = 0;
+        for (int q = 0; q < np; q++) if (keep[q]) { xm += x[q]; ym += y[q]; zm += z[q]; c++; }
+        xm /= c; ym /= c; zm /= c;
+        double worst = 0;
+        for (int q = 0; q < np; q++) {
+            if (keep[q]) worst = Math.max(worst, Math.abs(z[q] - (zm + slopes[1] * (x[q] - xm) + slopes[2] * (y[q] - ym))));
+        }
+        return worst;
+    }
+
+    private static void lsSlopes(double[] x, double[] y, double[] z, int np, boolean[] keep, double[] out) {
+        double xm = 0, ym = 0, zm = 0;
+        int c = 0;
+        for (int q = 0; q < np; q++) {
+            if (keep != null && !keep[q]) continue;
+            xm += x[q]; ym += y[q]; zm += z[q]; c++;
+        }
+        xm /= c; ym /= c; zm /= c;
+        double sxx = 0, syy = 0, sxy = 0, sxz = 0, syz = 0;
+        for (int q = 0; q < np; q++) {
+            if (keep != null && !keep[q]) continue;
+            double dx = x[q] - xm, dy = y[q] - ym, dz = z[q] - zm;
+            sxx += dx * dx; syy += dy * dy; sxy += dx * dy; sxz += dx * dz; syz += dy * dz;
+        }
+        double ridge = 1e-6 * (sxx + syy) + 1e-12;
+        sxx += ridge;
+        syy += ridge;
+        double det = sxx * syy - sxy * sxy;
+        out[1] = (sxz * syy - syz * sxy) / det;
+        out[2] = (syz * sxx - sxz * sxy) / det;
+    }
+
+    // ------------------------------------------------------------------ primitive helpers
+
+    /** Stable counting sort of items by group id (0..groups-1); fills start[0..groups]. */
+    static int[] countingSort(int[] items, int[] group, int m, int groups, int[] start) {
+        for (int k = 0; k < m; k++) start[group[k] + 1]++;
+        for (int g = 0; g < groups; g++) start[g + 1] += start[g];
+        int[] pos = Arrays.copyOf(start, groups);
+        int[] out = new int[m];
+        for (int k = 0; k < m; k++) out[pos[group[k]]++] = items[k];
+        return out;
+    }
+
+    /** Stable merge sort of idx[from, to) by key[idx]. */
+    static void mergeSortByKey(int[] idx, int from, int to, double[] key, int[] tmp) {
+        int len = to - from;
+        if (len < 2) return;
+        for (int width = 1; width < len; width *= 2) {
+            for (int lo = 0; lo < len - width; lo += 2 * width) {
+                int mid = lo + width, hi = Math.min(lo + 2 * width, len);
+                int a = lo, b = mid, o = lo;
+                while (a < mid && b < hi) {
+                    tmp[o++] = key[idx[from + b]] < key[idx[from + a]] ? idx[from + b++] : idx[from + a++];
+                }
+                while (a < mid) tmp[o++] = idx[from + a++];
+                while (b < hi) tmp[o++] = idx[from + b++];
+                System.arraycopy(tmp, lo, idx, from + lo, hi - lo);
+            }
+        }
+    }
+
+    /** Median of a[0..len) (the mean of the two middle values for even len); reorders a. */
+    static double median(double[] a, int len) {
+        int h = len >>> 1;
+        if (len <= 16) {
+            for (int q = 1; q < len; q++) {
+                double v = a[q];
+                int r = q - 1;
+                while (r >= 0 && a[r] > v) { a[r + 1] = a[r]; r--; }
+                a[r + 1] = v;
+            }
+            return (len & 1) == 1 ? a[h] : 0.5 * (a[h - 1] + a[h]);
+        }
+        double hi = select(a, len, h);
+        if ((len & 1) == 1) return hi;
+        double lo = a[0]; // after select, a[0..h) holds the values below a[h]: take their maximum
+        for (int q = 1; q < h; q++) if (a[q] > lo) lo = a[q];
+        return 0.5 * (lo + hi);
+    }
+
+    /**
+     * The k-th smallest of a[0..len) by Hoare's selection (Hoare 1961, "Algorithm 65: Find",
+     * Commun. ACM 4:321) with a median-of-three pivot; leaves smaller values before index k.
+     */
+    static double select(double[] a, int len, int k) {
+        int lo = 0, hi = len - 1;
+        while (hi > lo) {
+            int mid = (lo + hi) >>> 1;
+            if (a[mid] < a[lo]) swap(a, mid, lo);
+            if (a[hi] < a[lo]) swap(a, hi, lo);
+            if (a[hi] < a[mid]) swap(a, hi, mid);
+            double pivot = a[mid];
+            int i = lo, j = hi;
+            while (i <= j) {
+                while (a[i] < pivot) i++;
+                while (a[j] > pivot) j--;
+                if (i <= j) {
+                    swap(a, i, j);
+                    i++;
+                    j--;
+                }
+            }
+            if (k <= j) hi = j;
+            else if (k >= i) lo = i;
+            else return a[k];
+        }
+        return a[k];
+    }
+
+    private static void swap(double[] a, int i, int j) {
+        double t = a[i];
+        a[i] = a[j];
+        a[j] = t;
+    }
+}
