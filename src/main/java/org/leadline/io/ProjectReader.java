@@ -29,7 +29,7 @@ public final class ProjectReader {
     static final Set<String> INPUTS = Set.of("soundings", "nmea", "navigation", "attitude", "casts", "tide",
             "tide_zones", "vessel", "journal");
     static final Set<String> SETTINGS = Set.of("equation", "cell_m", "crs", "surface", "order", "cast_selection",
-            "latitude_deg", "sounder_speed_m_s", "draft_m", "cleaning");
+            "latitude_deg", "sounder_speed_m_s", "draft_m", "cleaning", "crosslines");
 
     public static Project read(Path file) {
         YamlInput y = new YamlInput(file);
@@ -75,6 +75,15 @@ public final class ProjectReader {
             if (has(s, "latitude_deg")) b.latitude(y.number(s.get("latitude_deg"), "latitude_deg", -90, 90, "degrees"));
             if (has(s, "sounder_speed_m_s")) b.sounderSpeed(y.number(s.get("sounder_speed_m_s"), "sounder_speed_m_s", 1300, 1800, "m/s"));
             if (has(s, "draft_m")) b.draft(y.number(s.get("draft_m"), "draft_m", 0, 30, "m"));
+            if (has(s, "crosslines")) {
+                Node cl = s.get("crosslines");
+                if (!(cl instanceof org.yaml.snakeyaml.nodes.SequenceNode seq)) {
+                    throw y.error(cl, "expected 'crosslines' a list of line names");
+                }
+                List<String> names = new java.util.ArrayList<>();
+                for (Node item : seq.getValue()) names.add(y.string(item, "crosslines"));
+                b.crosslines(names);
+            }
             if (has(s, "cleaning")) {
                 @SuppressWarnings("unchecked")
                 Map<String, Object> c = (Map<String, Object>) y.plain(y.mapping(s.get("cleaning"), "cleaning"));

@@ -37,11 +37,11 @@ public record Project(Path folder, String name, List<Path> soundings, List<Path>
     /** Sound-speed equations (DESIGN.md section 5). */
     public static final List<String> EQUATIONS = List.of("unesco", "del-grosso", "mackenzie", "coppens");
     /** Gridding methods. */
-    public static final List<String> SURFACES = List.of("median", "mean", "shoalest", "weighted");
+    public static final List<String> SURFACES = List.of("median", "mean", "shoalest", "weighted", "cube");
     /** IHO S-44 orders. */
     public static final List<String> ORDERS = List.of("exclusive", "special", "1a", "1b", "2");
     /** How a ping picks its cast. */
-    public static final List<String> CAST_SELECTIONS = List.of("nearest-in-time", "nearest-in-distance", "previous-in-time");
+    public static final List<String> CAST_SELECTIONS = List.of("nearest-time", "nearest-distance", "interpolate-time");
 
     public Project {
         Objects.requireNonNull(folder, "folder");
@@ -73,11 +73,13 @@ public record Project(Path folder, String name, List<Path> soundings, List<Path>
      * @param sounderSpeed  override of the vessel's sounder set speed, m/s; NaN: use the vessel file
      * @param draft         override of the vessel's static draft, m; NaN: use the vessel file
      * @param cleaning      free settings of the cleaning filters, passed through unread (unmodifiable)
+     * @param crosslines    names of the survey lines run as crosslines (compared with the main scheme)
      */
     public record Settings(String equation, double cell, String crs, String surface, String order, String castSelection,
-                           double latitude, double sounderSpeed, double draft, Map<String, Object> cleaning) {
-        public static final Settings DEFAULT = new Settings("unesco", 1.0, "auto", "median", "1a", "nearest-in-time",
-                Double.NaN, Double.NaN, Double.NaN, Map.of());
+                           double latitude, double sounderSpeed, double draft, Map<String, Object> cleaning,
+                           List<String> crosslines) {
+        public static final Settings DEFAULT = new Settings("unesco", Double.NaN, "auto", "median", "1a", "nearest-time",
+                Double.NaN, Double.NaN, Double.NaN, Map.of(), List.of());
 
         public Settings {
             check(EQUATIONS, equation, "equation");
@@ -86,7 +88,9 @@ public record Project(Path folder, String name, List<Path> soundings, List<Path>
             check(CAST_SELECTIONS, castSelection, "cast_selection");
             String crsProblem = crsProblem(crs);
             if (crsProblem != null) throw new IllegalArgumentException(crsProblem);
-            if (!(cell > 0) || !Double.isFinite(cell)) throw new IllegalArgumentException("expected a cell size > 0 m, found " + cell);
+            if (!Double.isNaN(cell) && (!(cell > 0) || !Double.isFinite(cell))) {
+                throw new IllegalArgumentException("expected a cell size > 0 m (or none for the suggested size), found " + cell);
+            }
             if (!Double.isNaN(latitude) && !(Math.abs(latitude) <= 90)) {
                 throw new IllegalArgumentException("expected a latitude in [-90, 90] degrees, found " + latitude);
             }
@@ -97,6 +101,7 @@ public record Project(Path folder, String name, List<Path> soundings, List<Path>
                 throw new IllegalArgumentException("expected a draft in [0, 30] m, found " + draft);
             }
             cleaning = cleaning == null ? Map.of() : Collections.unmodifiableMap(new LinkedHashMap<>(cleaning));
+            crosslines = crosslines == null ? List.of() : List.copyOf(crosslines);
         }
 
         private static void check(List<String> allowed, String value, String what) {
@@ -121,6 +126,7 @@ public record Project(Path folder, String name, List<Path> soundings, List<Path>
         private String equation, crs, surface, order, castSelection;
         private double cell, latitude, sounderSpeed, draft;
         private Map<String, Object> cleaning;
+        private List<String> crosslines;
 
         private Builder(Project p) {
             folder = p.folder; name = p.name; soundings = new ArrayList<>(p.soundings); nmea = new ArrayList<>(p.nmea);
@@ -129,6 +135,7 @@ public record Project(Path folder, String name, List<Path> soundings, List<Path>
             Settings s = p.settings;
             equation = s.equation; crs = s.crs; surface = s.surface; order = s.order; castSelection = s.castSelection;
             cell = s.cell; latitude = s.latitude; sounderSpeed = s.sounderSpeed; draft = s.draft; cleaning = s.cleaning;
+            crosslines = s.crosslines;
         }
 
         private static Path abs(Path p) { return p == null ? null : p.toAbsolutePath().normalize(); }
@@ -155,11 +162,12 @@ public record Project(Path folder, String name, List<Path> soundings, List<Path>
         public Builder sounderSpeed(double v) { sounderSpeed = v; return this; }
         public Builder draft(double v) { draft = v; return this; }
         public Builder cleaning(Map<String, Object> v) { cleaning = v; return this; }
+        public Builder crosslines(List<String> v) { crosslines = v; return this; }
 
         /** @throws IllegalArgumentException when a setting is out of its allowed values */
         public Project build() {
             return new Project(folder, name, soundings, nmea, navigation, attitude, casts, tide, tideZones, vessel, journal,
-                    new Settings(equation, cell, crs, surface, order, castSelection, latitude, sounderSpeed, draft, cleaning));
+                    new Settings(equation, cell, crs, surface, order, castSelection, latitude, sounderSpeed, draft, cleaning, crosslines));
         }
     }
 

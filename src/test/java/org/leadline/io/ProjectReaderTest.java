@@ -37,7 +37,7 @@ class ProjectReaderTest {
         assertThat(s.crs()).isEqualTo("EPSG:32631");
         assertThat(s.surface()).isEqualTo("shoalest");
         assertThat(s.order()).isEqualTo("1a");
-        assertThat(s.castSelection()).isEqualTo("nearest-in-distance");
+        assertThat(s.castSelection()).isEqualTo("nearest-distance");
         assertThat(s.latitude()).isEqualTo(50.1);
         assertThat(s.sounderSpeed()).isEqualTo(1480.0);
         assertThat(s.draft()).isEqualTo(0.7);

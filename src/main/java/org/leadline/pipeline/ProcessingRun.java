@@ -1,0 +1,348 @@
+package org.leadline.pipeline;
+
+import org.leadline.cleaning.Cleaner;
+import org.leadline.cleaning.CleaningSettings;
+import org.leadline.cleaning.CleaningStats;
+import org.leadline.cleaning.Edit;
+import org.leadline.cleaning.EditJournal;
+import org.leadline.io.EditJournalFile;
+import org.leadline.io.GeoJsonWriter;
+import org.leadline.io.GeoTiffWriter;
+import org.leadline.io.LineageWriter;
+import org.leadline.io.SoundingsCsvWriter;
+import org.leadline.io.XyzWriter;
+import org.leadline.raypath.CastSelector;
+import org.leadline.raypath.RayTable;
+import org.leadline.reduction.Reducer;
+import org.leadline.survey.Project;
+import org.leadline.survey.SoundingTable;
+import org.leadline.surface.Contours;
+import org.leadline.surface.Coverage;
+import org.leadline.surface.Grid;
+import org.leadline.surface.GridSpec;
+import org.leadline.surface.Gridder;
+import org.leadline.surface.MapProjection;
+import org.leadline.surface.SoundingSelection;
+import org.leadline.uncertainty.Compliance;
+import org.leadline.uncertainty.ComplianceSummary;
+import org.leadline.uncertainty.CrosslineCheck;
+import org.leadline.uncertainty.CrosslineResult;
+import org.leadline.uncertainty.S44Order;
+import org.leadline.uncertainty.TpuModel;
+import org.leadline.uncertainty.TpuSummary;
+import org.leadline.watercolumn.SoundSpeedProfile;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * One processing run of a project: read and merge, reduce (ray bending, draft, settlement,
+ * heave, lever arms, water level), estimate TPU, clean (automatic filters then the reviewer's
+ * edit journal), grid, check against the IHO S-44 order and the crosslines, and write every output
+ * (DESIGN.md section 4) into an output folder so that a failed run never leaves a half-written
+ * file under a final name ({@link OutputFolder}).
+ */
+public final class ProcessingRun {
+    private final Project project;
+    private final Progress progress;
+
+    public ProcessingRun(Project project, Progress progress) {
+        this.project = project;
+        this.progress = progress == null ? Progress.NONE : progress;
+    }
+
+    /** The in-memory result of a run (everything the report and the workbench show). */
+    public record Result(SurveyInputs inputs, SoundingTable soundings, MapProjection projection, Grid grid,
+                         GridSpec gridSpec, Gridder.Method method, Coverage coverage, List<Contours.Polyline> contours,
+                         int[] selected, TpuSummary tpu, ComplianceSummary compliance, S44Order order,
+                         CleaningStats cleaning, int journalEdits, CrosslineResult crosslines, List<String> crosslineLines,
+                         double[] soundSpeedAtTransducer, List<String> warnings, String started) {}
+
+    /** Runs the science without writing anything. */
+    public Result compute() throws IOException {
+        String started = Instant.now().toString();
+        Project.Settings set = project.settings();
+        SurveyInputs in = SurveyInputs.load(project, progress);
+        List<String> warnings = new ArrayList<>(in.warnings);
+        int n = in.pings.size;
+        checkCancel();
+
+        progress.stage("Choosing casts");
+        List<SoundSpeedProfile> profiles = new ArrayList<>();
+        for (var d : in.profiles) profiles.add(d.profile());
+        if (profiles.isEmpty()) profiles.add(SoundSpeedProfile.constant(in.vessel.sounderSetSpeed()));
+        Reducer.CastChoice choice = chooseCasts(in, profiles.size());
+
+        progress.stage("Building ray tables");
+        Reducer.BeamTracer[] tracers = buildTracers(in, profiles);
+        checkCancel();
+
+        progress.stage("Reducing soundings");
+        MapProjection projection = MapProjection.parse(set.crs(), in.lat, in.lon);
+        Reducer.MergedInputs merged = new Reducer.MergedInputs(in.lat, in.lon, in.heading, in.heave, in.roll, in.pitch,
+                in.sog, in.mergeReason);
+        Reducer.WaterLevelAt level = in.waterLevel == null ? (t, la, lo) -> 0.0 : in.waterLevel::level;
+        SoundingTable s = new Reducer(in.vessel, false).reduce(in.pings, merged, tracers, choice, level,
+                projection::forward);
+        checkCancel();
+
+        progress.stage("Estimating uncertainty");
+        double[] cTransducer = new double[n];
+        double[] zoneSigma = new double[n];
+        for (int i = 0; i < n; i++) {
+            int c = Math.max(0, choice.castA()[i]);
+            double zt = in.vessel.transducerDraft() - (Double.isNaN(in.heave[i]) ? 0 : in.heave[i]);
+            cTransducer[i] = profiles.get(c).speedAt(zt);
+            zoneSigma[i] = in.waterLevel != null && Double.isFinite(s.lat[i])
+                    && in.waterLevel.zoneAt(s.lat[i], s.lon[i]) >= 0 ? in.vessel.sigma().tideZone() : 0;
+        }
+        TpuModel tpu = new TpuModel(in.vessel);
+        tpu.compute(s, in.heave, cTransducer, zoneSigma);
+        checkCancel();
+
+        progress.stage("Cleaning");
+        CleaningSettings cs = CleaningSettings.fromMap(set.cleaning());
+        CleaningStats stats = Cleaner.clean(s, in.pings.quality, cs);
+        int journalEdits = 0;
+        if (project.journal() != null) {
+            EditJournalFile.Contents j = EditJournalFile.read(project.journal());
+            warnings.addAll(j.warnings());
+            List<Edit> edits = j.edits();
+            EditJournal.apply(s, edits);
+            journalEdits = edits.size();
+        }
+        TpuSummary tpuSummary = tpu.summarize(s, in.heave, cTransducer, zoneSigma);
+        S44Order order = S44Order.parse(set.order());
+        ComplianceSummary compliance = Compliance.evaluate(s, order).summary(s);
+        checkCancel();
+
+        progress.stage("Building surface");
+        Gridder.Method method = Gridder.Method.parse(set.surface());
+        boolean[] acc = new boolean[n];
+        int nAcc = 0;
+        for (int i = 0; i < n; i++) if (acc[i] = s.accepted(i) && Double.isFinite(s.easting[i])) nAcc++;
+        if (nAcc == 0) {
+            throw new org.leadline.io.InputException((String) null, 0, 0,
+                    "no accepted soundings to grid: every ping was rejected (see soundings.csv reasons)", null);
+        }
+        double cell = Double.isFinite(set.cell()) ? set.cell()
+                : GridSpec.suggestCell(select(s.depth, acc), in.vessel.beamWidth());
+        if (!Double.isFinite(set.cell())) warnings.add("cell size not set: using the suggested " + cell + " m (from depth and beam footprint)");
+        GridSpec spec = GridSpec.covering(select(s.easting, acc), select(s.northing, acc), cell);
+        Grid grid = Gridder.build(spec, projection.crs(), s.easting, s.northing, s.depth, s.tvu, s.thu, acc, method,
+                org.leadline.surface.Cube.Parameters.defaults());
+        Coverage coverage = Coverage.of(grid);
+        double[] levels = contourLevels(grid);
+        List<Contours.Polyline> contours = new ArrayList<>();
+        for (List<Contours.Polyline> l : Contours.trace(grid, levels)) contours.addAll(l);
+        int[] selected = SoundingSelection.select(s.easting, s.northing, s.depth, acc, Math.max(5 * cell, 10));
+
+        progress.stage("Comparing crosslines");
+        List<String> crossNames = new ArrayList<>();
+        CrosslineResult cross = crosslines(s, acc, spec, projection, method, order, crossNames);
+        return new Result(in, s, projection, grid, spec, method, coverage, contours, selected, tpuSummary, compliance,
+                order, stats, journalEdits, cross, crossNames, cTransducer, warnings, started);
+    }
+
+    /** Runs and writes every output into {@code outDir}; returns the result. */
+    public Result run(Path outDir) throws IOException {
+        Result r = compute();
+        progress.stage("Writing outputs");
+        try (OutputFolder out = OutputFolder.open(outDir)) {
+            SoundingsCsvWriter.write(r.soundings(), out.stage("soundings.csv"));
+            GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
+                    List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
+                    Map.of("LEADLINE_METHOD", r.method().name().toLowerCase(),
+                            "LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer"));
+            XyzWriter.write(r.grid(), out.stage("surface.xyz"));
+            writeContours(r, out.stage("contours.geojson"));
+            writeSelected(r, out.stage("selected-soundings.geojson"));
+            Map<String, String> outputs = new LinkedHashMap<>();
+            for (String f : List.of("soundings.csv", "surface.tif", "surface.xyz", "contours.geojson",
+                    "selected-soundings.geojson")) outputs.put(f, "produced");
+            outputs.put("report.html", "produced");
+            org.leadline.report.ReportWriter.write(r, project, out.stage("report.html"), out);
+            outputs.put("lineage.json", "produced");
+            List<LineageWriter.Input> inputs = new ArrayList<>();
+            for (Path p : project.inputs()) {
+                if (p != null && java.nio.file.Files.isRegularFile(p)) inputs.add(LineageWriter.input(role(p), p));
+            }
+            LineageWriter.write(out.stage("lineage.json"), version(), r.started(), Instant.now().toString(), inputs,
+                    settings(r), outputs, r.warnings());
+            out.commit();
+        }
+        return r;
+    }
+
+    private Reducer.CastChoice chooseCasts(SurveyInputs in, int nProfiles) {
+        int n = in.pings.size;
+        if (in.profiles.size() <= 1) return new Reducer.CastChoice(new int[n], new int[n], null);
+        int k = in.casts.size();
+        double[] ct = new double[k], cla = new double[k], clo = new double[k];
+        for (int i = 0; i < k; i++) {
+            ct[i] = in.casts.get(i).time();
+            cla[i] = in.casts.get(i).latitude();
+            clo[i] = in.casts.get(i).longitude();
+        }
+        CastSelector.Mode mode = CastSelector.Mode.parse(project.settings().castSelection());
+        CastSelector.Selection sel = CastSelector.select(mode, ct, cla, clo, in.pings.time, in.lat, in.lon);
+        return new Reducer.CastChoice(sel.firstColumn(), sel.secondColumn(), sel.weightColumn());
+    }
+
+    /** One ray table per profile, covering the transducer depths, angles and times of this survey. */
+    private static Reducer.BeamTracer[] buildTracers(SurveyInputs in, List<SoundSpeedProfile> profiles) {
+        double maxT = 0, maxAngle = 0, minZ = Double.POSITIVE_INFINITY, maxZ = 0;
+        var p = in.pings;
+        double setSpeed = in.vessel.sounderSetSpeed();
+        for (int i = 0; i < p.size; i++) {
+            double t = Double.isFinite(p.twtt[i]) ? p.twtt[i] / 2 : p.depth[i] / setSpeed;
+            if (t > maxT) maxT = t;
+            double a = Math.abs(Double.isNaN(p.angle[i]) ? 0 : p.angle[i])
+                    + Math.abs(Double.isNaN(in.roll[i]) ? 0 : in.roll[i])
+                    + Math.abs(Double.isNaN(in.pitch[i]) ? 0 : in.pitch[i]);
+            if (a > maxAngle) maxAngle = a;
+            double h = Double.isNaN(in.heave[i]) ? 0 : in.heave[i];
+            minZ = Math.min(minZ, -h);
+            maxZ = Math.max(maxZ, -h);
+        }
+        double draft = in.vessel.transducerDraft();
+        double settle = 0;
+        for (double v : in.vessel.settlementValues()) settle = Math.max(settle, v);
+        double zLo = Math.max(0, draft + minZ - 1.0), zHi = draft + settle + maxZ + 1.0;
+        double angle = Math.toRadians(Math.min(80, maxAngle + 2));
+        Reducer.BeamTracer[] out = new Reducer.BeamTracer[profiles.size()];
+        for (int k = 0; k < out.length; k++) {
+            RayTable table = new RayTable(profiles.get(k), zLo, zHi, angle, maxT * 1.05 + 1e-3);
+            out[k] = table::lookup;
+        }
+        return out;
+    }
+
+    private CrosslineResult crosslines(SoundingTable s, boolean[] acc, GridSpec spec, MapProjection projection,
+                                       Gridder.Method method, S44Order order, List<String> crossNames) {
+        List<String> names = project.settings().crosslines();
+        if (names == null || names.isEmpty()) return null;
+        boolean[] isCross = new boolean[s.lineNames().size()];
+        for (int l = 0; l < isCross.length; l++) {
+            if (names.contains(s.lineNames().get(l))) {
+                isCross[l] = true;
+                crossNames.add(s.lineNames().get(l));
+            }
+        }
+        boolean[] main = new boolean[s.size];
+        int nc = 0;
+        for (int i = 0; i < s.size; i++) {
+            boolean c = s.line[i] >= 0 && isCross[s.line[i]];
+            main[i] = acc[i] && !c;
+            if (acc[i] && c) nc++;
+        }
+        if (nc == 0) return null;
+        double[] e = new double[nc], no = new double[nc], d = new double[nc];
+        int k = 0;
+        for (int i = 0; i < s.size; i++) {
+            if (acc[i] && s.line[i] >= 0 && isCross[s.line[i]]) {
+                e[k] = s.easting[i];
+                no[k] = s.northing[i];
+                d[k] = s.depth[i];
+                k++;
+            }
+        }
+        Grid mainGrid = Gridder.build(spec, projection.crs(), s.easting, s.northing, s.depth, s.tvu, s.thu, main,
+                method, org.leadline.surface.Cube.Parameters.defaults());
+        float[] depth = mainGrid.layer(Grid.DEPTH);
+        return CrosslineCheck.compare(e, no, d, (x, y) -> {
+            int c = mainGrid.col(x), r = mainGrid.row(y);
+            return c < 0 || r < 0 ? Double.NaN : depth[r * mainGrid.nx + c];
+        }, order::tvuLimit);
+    }
+
+    private static double[] contourLevels(Grid g) {
+        float[] d = g.layer(Grid.DEPTH);
+        double min = Double.POSITIVE_INFINITY, max = Double.NEGATIVE_INFINITY;
+        for (float v : d) if (Float.isFinite(v)) { min = Math.min(min, v); max = Math.max(max, v); }
+        if (!(max > min)) return new double[0];
+        double range = max - min;
+        double interval = range <= 10 ? 1 : range <= 25 ? 2 : range <= 60 ? 5 : range <= 150 ? 10 : 20;
+        return Contours.levels(Math.ceil(min / interval) * interval, max, interval);
+    }
+
+    private void writeContours(Result r, Path file) throws IOException {
+        List<Contours.Polyline> geo = new ArrayList<>();
+        for (Contours.Polyline p : r.contours()) {
+            double[] lat = new double[p.x().length], lon = new double[p.x().length];
+            r.projection().inverse(p.x(), p.y(), lat, lon);
+            geo.add(new Contours.Polyline(p.level(), lon, lat, p.closed()));
+        }
+        GeoJsonWriter.writeContours(file, geo);
+    }
+
+    private void writeSelected(Result r, Path file) throws IOException {
+        SoundingTable s = r.soundings();
+        int m = r.selected().length;
+        double[] lon = new double[m], lat = new double[m], d = new double[m], tvu = new double[m];
+        for (int k = 0; k < m; k++) {
+            int i = r.selected()[k];
+            lon[k] = s.lon[i];
+            lat[k] = s.lat[i];
+            d[k] = s.depth[i];
+            tvu[k] = s.tvu[i];
+        }
+        GeoJsonWriter.writeSoundings(file, lon, lat, d, tvu);
+    }
+
+    private Map<String, Object> settings(Result r) {
+        Project.Settings s = project.settings();
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("equation", s.equation());
+        m.put("cell_m", r.gridSpec().cell());
+        m.put("crs", r.projection().code());
+        m.put("crs_requested", s.crs());
+        m.put("surface", r.method().name().toLowerCase());
+        m.put("order", r.order().key());
+        m.put("cast_selection", s.castSelection());
+        m.put("latitude_deg", Double.isFinite(s.latitude()) ? s.latitude() : null);
+        m.put("draft_m", r.inputs().vessel.transducerDraft());
+        m.put("sounder_set_speed_m_s", r.inputs().vessel.sounderSetSpeed());
+        m.put("latency_s", r.inputs().vessel.latency());
+        m.put("cleaning", s.cleaning());
+        m.put("crosslines", r.crosslineLines());
+        return m;
+    }
+
+    private String role(Path p) {
+        if (project.soundings().contains(p)) return "soundings";
+        if (project.nmea().contains(p)) return "nmea";
+        if (project.casts().contains(p)) return "cast";
+        if (p.equals(project.navigation())) return "navigation";
+        if (p.equals(project.attitude())) return "attitude";
+        if (p.equals(project.tide())) return "water-level";
+        if (p.equals(project.tideZones())) return "tide-zones";
+        if (p.equals(project.vessel())) return "vessel";
+        if (p.equals(project.journal())) return "edit-journal";
+        return "input";
+    }
+
+    /** Program version from the jar manifest, or "development". */
+    public static String version() {
+        String v = ProcessingRun.class.getPackage().getImplementationVersion();
+        return v == null ? "development" : v;
+    }
+
+    private static double[] select(double[] a, boolean[] keep) {
+        int k = 0;
+        for (boolean b : keep) if (b) k++;
+        double[] out = new double[k];
+        k = 0;
+        for (int i = 0; i < a.length; i++) if (keep[i]) out[k++] = a[i];
+        return out;
+    }
+
+    private void checkCancel() {
+        if (progress.cancelled()) throw new Progress.Cancelled();
+    }
+}
