@@ -1,0 +1,69 @@
+package org.leadline.io;
+
+import org.leadline.surface.Grid;
+
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+
+/**
+ * Writes a {@link Grid} as XYZ text: one line per non-empty cell, at the cell centre, as
+ * {@code easting,northing,depth,uncertainty,count} under a header line. Eastings, northings,
+ * depths and uncertainties in metres with 3 decimals (millimetres), count as an integer; a cell
+ * with no depth (NaN) is left out; a missing uncertainty is written {@code NaN}. Rows run north to
+ * south, west to east (the grid's row order). Written atomically (see {@link AtomicFiles}).
+ */
+public final class XyzWriter {
+    private XyzWriter() {}
+
+    /** The header line, also the column order. */
+    public static final String HEADER = "easting,northing,depth,uncertainty,count";
+
+    /**
+     * @param grid grid with at least a {@link Grid#DEPTH} layer ({@link Grid#UNCERTAINTY} and {@link Grid#COUNT} when present)
+     * @param out  the file to create or replace
+     * @throws IllegalArgumentException when the grid has no depth layer
+     */
+    public static void write(Grid grid, Path out) throws IOException {
+        float[] depth = grid.layer(Grid.DEPTH);
+        if (depth == null) throw new IllegalArgumentException("grid has no '" + Grid.DEPTH + "' layer to write to " + out);
+        float[] unc = grid.layer(Grid.UNCERTAINTY);
+        float[] count = grid.layer(Grid.COUNT);
+        AtomicFiles.write(out, tmp -> {
+            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+                StringBuilder sb = new StringBuilder(96);
+                w.write(HEADER);
+                w.write('\n');
+                for (int r = 0; r < grid.ny; r++) {
+                    double y = grid.centreY(r);
+                    for (int c = 0; c < grid.nx; c++) {
+                        int i = r * grid.nx + c;
+                        if (Float.isNaN(depth[i])) continue;
+                        sb.setLength(0);
+                        fixed3(sb, grid.centreX(c)).append(',');
+                        fixed3(sb, y).append(',');
+                        fixed3(sb, depth[i]).append(',');
+                        fixed3(sb, unc == null ? Double.NaN : unc[i]).append(',');
+                        if (count == null || Float.isNaN(count[i])) sb.append("NaN");
+                        else sb.append(Math.round(count[i]));
+                        w.append(sb).append('\n');
+                    }
+                }
+            }
+        });
+    }
+
+    /** Appends v with exactly three decimals, half away from zero; NaN/infinite as Java prints them. */
+    static StringBuilder fixed3(StringBuilder sb, double v) {
+        if (!Double.isFinite(v) || Math.abs(v) >= 9e15 / 1000) return sb.append(v);
+        long m = Math.round(Math.abs(v) * 1000);
+        if (v < 0 && m != 0) sb.append('-');
+        sb.append(m / 1000).append('.');
+        long f = m % 1000;
+        if (f < 100) sb.append('0');
+        if (f < 10) sb.append('0');
+        return sb.append(f);
+    }
+}
