@@ -87,6 +87,7 @@ public final class Cube {
         Arrays.fill(head, -1);
         Hyps h = new Hyps(Math.max(16, Math.min(cells, 1 << 16)));
         double cell = g.cell, minR = cell / Math.sqrt(2) * (1 + 1e-12);
+        boolean square = p.distanceExponent() == 2.0;
         for (int i = 0; i < depth.length; i++) {
             if (use[i] < 0) continue;
             double x = e[i], y = n[i], d = depth[i];
@@ -104,7 +105,8 @@ public final class Cube {
                     double dx = g.centreX(c) - x;
                     double dist = Math.sqrt(dx * dx + dy * dy);
                     if (dist > radius) continue;
-                    double var = varV * (1 + Math.pow((dist + p.horizontalErrorScale() * sh) / cell, p.distanceExponent()));
+                    double q = (dist + p.horizontalErrorScale() * sh) / cell;
+                    double var = varV * (1 + (square ? q * q : Math.pow(q, p.distanceExponent())));
                     update(h, head, r * g.nx + c, d, var, p.interventionThreshold());
                 }
             }
