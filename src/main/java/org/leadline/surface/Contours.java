@@ -65,6 +65,14 @@ public final class Contours {
 
     // edges of a square: 0 top (TL-TR), 1 right (TR-BR), 2 bottom (BL-BR), 3 left (TL-BL)
     private static final int TOP = 0, RIGHT = 1, BOTTOM = 2, LEFT = 3;
+    /** Edge pairs by case (bits TL=8 TR=4 BR=2 BL=1 deeper); saddles 5 and 10 handled apart. */
+    private static final int[][][] SEGMENTS = {
+            {}, {{LEFT, BOTTOM}}, {{BOTTOM, RIGHT}}, {{LEFT, RIGHT}},
+            {{TOP, RIGHT}}, null, {{TOP, BOTTOM}}, {{TOP, LEFT}},
+            {{TOP, LEFT}}, {{TOP, BOTTOM}}, null, {{TOP, RIGHT}},
+            {{LEFT, RIGHT}}, {{BOTTOM, RIGHT}}, {{LEFT, BOTTOM}}, {}};
+    private static final int[][] CUT_TR_BL = {{TOP, RIGHT}, {BOTTOM, LEFT}};
+    private static final int[][] CUT_TL_BR = {{TOP, LEFT}, {RIGHT, BOTTOM}};
 
     /** Traces one level. Squares are indexed by their top-left centre (r, c), r < ny-1, c < nx-1. */
     private static final class Tracer {
@@ -122,23 +130,13 @@ public final class Contours {
         }
 
         int[][] segments(int s, int cs) {
-            switch (cs) {
-                case 1: case 14: return new int[][]{{LEFT, BOTTOM}};
-                case 2: case 13: return new int[][]{{BOTTOM, RIGHT}};
-                case 3: case 12: return new int[][]{{LEFT, RIGHT}};
-                case 4: case 11: return new int[][]{{TOP, RIGHT}};
-                case 6: case 9: return new int[][]{{TOP, BOTTOM}};
-                case 7: case 8: return new int[][]{{TOP, LEFT}};
-                case 5: case 10: {
-                    boolean centreDeeper = centre(s) > level;
-                    // case 10: TL, BR deeper. Deeper centre joins them: cut off TR and BL.
-                    // case 5: TR, BL deeper. Deeper centre joins them: cut off TL and BR.
-                    boolean cutTrBl = (cs == 10) == centreDeeper;
-                    return cutTrBl ? new int[][]{{TOP, RIGHT}, {BOTTOM, LEFT}}
-                                   : new int[][]{{TOP, LEFT}, {RIGHT, BOTTOM}};
-                }
-                default: return new int[0][];
+            if (cs == 5 || cs == 10) {
+                boolean centreDeeper = centre(s) > level;
+                // case 10: TL, BR deeper; case 5: TR, BL deeper. A deeper centre joins the deeper
+                // corners, so the lines cut off the other two corners.
+                return (cs == 10) == centreDeeper ? CUT_TR_BL : CUT_TL_BR;
             }
+            return SEGMENTS[cs];
         }
 
         double centre(int s) {

@@ -54,19 +54,23 @@ public final class Cube {
      * @param distanceExponent      alpha in the variance inflation
      * @param horizontalErrorScale  k in the variance inflation
      * @param interventionThreshold largest normalised innovation that joins a hypothesis
+     * @param maxHypotheses         most hypotheses a node keeps (a bound on run time, not in the paper):
+     *                              when TVU is far below the real scatter almost every sounding would
+     *                              start its own hypothesis; a full node ignores further disagreeing
+     *                              soundings (they still count in COUNT and STDDEV)
      */
     public record Parameters(double captureFraction, double distanceExponent, double horizontalErrorScale,
-                             double interventionThreshold) {
+                             double interventionThreshold, int maxHypotheses) {
         public Parameters {
             if (!(captureFraction >= 0) || !(distanceExponent > 0) || !(horizontalErrorScale >= 0)
-                    || !(interventionThreshold > 0)) {
+                    || !(interventionThreshold > 0) || maxHypotheses < 1) {
                 throw new IllegalArgumentException("CUBE parameters must be non-negative (threshold and exponent positive): "
                         + captureFraction + ", " + distanceExponent + ", " + horizontalErrorScale + ", "
-                        + interventionThreshold);
+                        + interventionThreshold + ", " + maxHypotheses);
             }
         }
 
-        public static Parameters defaults() { return new Parameters(0.05, 2.0, 1.96, 3.0); }
+        public static Parameters defaults() { return new Parameters(0.05, 2.0, 1.96, 3.0, 32); }
     }
 
     /** Per node (row-major, like Grid layers): depth and 95 % uncertainty of the chosen hypothesis (NaN if none), hypothesis count. */
@@ -107,7 +111,7 @@ public final class Cube {
                     if (dist > radius) continue;
                     double q = (dist + p.horizontalErrorScale() * sh) / cell;
                     double var = varV * (1 + (square ? q * q : Math.pow(q, p.distanceExponent())));
-                    update(h, head, r * g.nx + c, d, var, p.interventionThreshold());
+                    update(h, head, r * g.nx + c, d, var, p.interventionThreshold(), p.maxHypotheses());
                 }
             }
         }
@@ -139,18 +143,20 @@ public final class Cube {
         return j < best;
     }
 
-    private static void update(Hyps h, int[] head, int node, double d, double var, double threshold) {
-        int best = -1, last = -1;
-        double bestQ = Double.POSITIVE_INFINITY;
+    private static void update(Hyps h, int[] head, int node, double d, double var, double threshold, int maxHyp) {
+        int best = -1, last = -1, count = 0;
+        double bestQ2 = Double.POSITIVE_INFINITY;
         for (int j = head[node]; j >= 0; j = h.next[j]) {
-            double q = Math.abs(d - h.mean[j]) / Math.sqrt(h.var[j] + var);
-            if (q < bestQ) {
-                bestQ = q;
+            double dz = d - h.mean[j];
+            double q2 = dz * dz / (h.var[j] + var);   // squared normalised innovation
+            if (q2 < bestQ2) {
+                bestQ2 = q2;
                 best = j;
             }
             last = j;
+            count++;
         }
-        if (best >= 0 && bestQ <= threshold) {
+        if (best >= 0 && bestQ2 <= threshold * threshold) {
             double gain = h.var[best] / (h.var[best] + var);
             h.mean[best] += gain * (d - h.mean[best]);
             h.var[best] = (1 - gain) * h.var[best];
@@ -161,6 +167,7 @@ public final class Cube {
             h.m2[best] += delta * (d - h.raw[best]);
             return;
         }
+        if (count >= maxHyp) return;   // node full: TVU far below the real scatter; see Parameters
         int j = h.add(d, var);
         if (last < 0) head[node] = j;
         else h.next[last] = j;

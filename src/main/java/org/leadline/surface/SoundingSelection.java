@@ -59,30 +59,104 @@ public final class SoundingSelection {
         sortByDepth(idx, depth);
 
         double r2 = radius * radius;
-        Map<Long, int[]> buckets = new HashMap<>();   // bucket -> [count, i0, i1, ...]
+        double minE = Double.POSITIVE_INFINITY, minN = Double.POSITIVE_INFINITY;
+        double maxE = Double.NEGATIVE_INFINITY, maxN = Double.NEGATIVE_INFINITY;
+        for (int i : idx) {
+            minE = Math.min(minE, e[i]);
+            maxE = Math.max(maxE, e[i]);
+            minN = Math.min(minN, n[i]);
+            maxN = Math.max(maxN, n[i]);
+        }
+        double nbxD = Math.floor((maxE - minE) / radius) + 1, nbyD = Math.floor((maxN - minN) / radius) + 1;
+        Buckets buckets = m > 0 && nbxD * nbyD <= Math.max(4.0 * m, 1 << 20)
+                ? new DenseBuckets(minE, minN, radius, (int) nbxD, (int) nbyD) : new HashBuckets(radius);
         int[] out = new int[Math.min(m, 1024)];
         int k = 0;
         for (int i : idx) {
-            long bx = (long) Math.floor(e[i] / radius), by = (long) Math.floor(n[i] / radius);
-            boolean near = false;
-            for (long dx = -1; dx <= 1 && !near; dx++) {
-                for (long dy = -1; dy <= 1 && !near; dy++) {
-                    int[] b = buckets.get(key(bx + dx, by + dy));
-                    if (b == null) continue;
-                    for (int j = 1; j <= b[0]; j++) {
-                        int s = b[j];
-                        double ex = e[s] - e[i], ny = n[s] - n[i];
-                        if (ex * ex + ny * ny <= r2) {
-                            near = true;
-                            break;
-                        }
+            if (buckets.anyWithin(e, n, e[i], n[i], r2)) continue;
+            if (k == out.length) out = Arrays.copyOf(out, out.length * 2);
+            out[k++] = i;
+            buckets.add(i, e[i], n[i]);
+        }
+        return Arrays.copyOf(out, k);
+    }
+
+    /** Selected soundings by square buckets of the radius's size: a neighbour lies in the 3 x 3 block. */
+    private interface Buckets {
+        boolean anyWithin(double[] e, double[] n, double x, double y, double r2);
+
+        void add(int i, double x, double y);
+    }
+
+    /** A dense bucket array over the data's extent, each bucket a linked list through next[]. */
+    private static final class DenseBuckets implements Buckets {
+        final double x0, y0, size;
+        final int nbx, nby;
+        final int[] head;
+        int[] next = new int[1024], item = new int[1024];
+        int count;
+
+        DenseBuckets(double x0, double y0, double size, int nbx, int nby) {
+            this.x0 = x0;
+            this.y0 = y0;
+            this.size = size;
+            this.nbx = nbx;
+            this.nby = nby;
+            head = new int[nbx * nby];
+            Arrays.fill(head, -1);
+        }
+
+        public boolean anyWithin(double[] e, double[] n, double x, double y, double r2) {
+            int bx = (int) ((x - x0) / size), by = (int) ((y - y0) / size);
+            for (int cy = Math.max(0, by - 1); cy <= Math.min(nby - 1, by + 1); cy++) {
+                for (int cx = Math.max(0, bx - 1); cx <= Math.min(nbx - 1, bx + 1); cx++) {
+                    for (int p = head[cy * nbx + cx]; p >= 0; p = next[p]) {
+                        int s = item[p];
+                        double dx = e[s] - x, dy = n[s] - y;
+                        if (dx * dx + dy * dy <= r2) return true;
                     }
                 }
             }
-            if (near) continue;
-            if (k == out.length) out = Arrays.copyOf(out, out.length * 2);
-            out[k++] = i;
-            buckets.merge(key(bx, by), new int[]{1, i}, (a, unused) -> {
+            return false;
+        }
+
+        public void add(int i, double x, double y) {
+            if (count == item.length) {
+                item = Arrays.copyOf(item, count * 2);
+                next = Arrays.copyOf(next, count * 2);
+            }
+            int b = (int) ((y - y0) / size) * nbx + (int) ((x - x0) / size);
+            item[count] = i;
+            next[count] = head[b];
+            head[b] = count++;
+        }
+    }
+
+    /** Buckets in a hash map, for sparse data over a wide extent. */
+    private static final class HashBuckets implements Buckets {
+        final double size;
+        final Map<Long, int[]> map = new HashMap<>();   // bucket -> [count, i0, i1, ...]
+
+        HashBuckets(double size) { this.size = size; }
+
+        public boolean anyWithin(double[] e, double[] n, double x, double y, double r2) {
+            long bx = (long) Math.floor(x / size), by = (long) Math.floor(y / size);
+            for (long dx = -1; dx <= 1; dx++) {
+                for (long dy = -1; dy <= 1; dy++) {
+                    int[] b = map.get(key(bx + dx, by + dy));
+                    if (b == null) continue;
+                    for (int j = 1; j <= b[0]; j++) {
+                        double ex = e[b[j]] - x, ny = n[b[j]] - y;
+                        if (ex * ex + ny * ny <= r2) return true;
+                    }
+                }
+            }
+            return false;
+        }
+
+        public void add(int i, double x, double y) {
+            long bx = (long) Math.floor(x / size), by = (long) Math.floor(y / size);
+            map.merge(key(bx, by), new int[]{1, i}, (a, unused) -> {
                 int c = a[0] + 1;
                 int[] b = c < a.length ? a : Arrays.copyOf(a, a.length * 2);
                 b[c] = i;
@@ -90,9 +164,9 @@ public final class SoundingSelection {
                 return b;
             });
         }
-        return Arrays.copyOf(out, k);
     }
 
+    /** Distinct buckets may share a key; that only adds candidates to check, never hides one. */
     private static long key(long bx, long by) { return bx * 0x9E3779B97F4A7C15L ^ by; }
 
     /** Stable merge sort of indices by depth (ties keep index order). */

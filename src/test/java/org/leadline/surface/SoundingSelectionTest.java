@@ -22,11 +22,32 @@ class SoundingSelectionTest {
                 d[i] = Math.round((20 + 3 * r.nextGaussian()) * 10) / 10.0;   // ties at 0.1 m
                 acc[i] = r.nextInt(10) != 0;
             }
-            double radius = 3 + trial;
+            check(e, n, d, acc, 3 + trial);
+        }
+    }
+
+    @Test
+    void propertiesHoldForClustersFarApart() {
+        // two clusters 5000 km apart: too wide for a dense bucket array, so the hashed buckets are used
+        Random r = new Random(9);
+        int np = 4000;
+        double[] e = new double[np], n = new double[np], d = new double[np];
+        for (int i = 0; i < np; i++) {
+            double off = i % 2 == 0 ? 0 : 5_000_000;
+            e[i] = off + 100 * r.nextDouble();
+            n[i] = off + 100 * r.nextDouble();
+            d[i] = Math.round((20 + 3 * r.nextGaussian()) * 10) / 10.0;
+        }
+        check(e, n, d, null, 2.5);
+    }
+
+    private static void check(double[] e, double[] n, double[] d, boolean[] acc, double radius) {
+        int np = d.length;
+        {
             int[] sel = SoundingSelection.select(e, n, d, acc, radius);
             boolean[] chosen = new boolean[np];
             for (int s : sel) {
-                assertThat(acc[s]).isTrue();
+                assertThat(acc == null || acc[s]).isTrue();
                 chosen[s] = true;
             }
             // 1. selected soundings are more than the radius apart
@@ -37,7 +58,7 @@ class SoundingSelectionTest {
             }
             // 2. every unselected accepted sounding has a selected one at least as shoal within the radius
             for (int i = 0; i < np; i++) {
-                if (!acc[i] || chosen[i]) continue;
+                if ((acc != null && !acc[i]) || chosen[i]) continue;
                 boolean covered = false;
                 for (int s : sel) {
                     if (d[s] <= d[i] && Math.hypot(e[s] - e[i], n[s] - n[i]) <= radius) {
@@ -49,10 +70,13 @@ class SoundingSelectionTest {
             }
             // 3. the shoalest accepted sounding (first by index among ties) is selected, first
             int shoalest = -1;
-            for (int i = 0; i < np; i++) if (acc[i] && (shoalest < 0 || d[i] < d[shoalest])) shoalest = i;
+            for (int i = 0; i < np; i++) {
+                if ((acc == null || acc[i]) && (shoalest < 0 || d[i] < d[shoalest])) shoalest = i;
+            }
             assertThat(sel[0]).isEqualTo(shoalest);
             // selection order is shoalest first
             for (int k = 1; k < sel.length; k++) assertThat(d[sel[k]]).isGreaterThanOrEqualTo(d[sel[k - 1]]);
+            assertThat(sel.length).isGreaterThan(10);
         }
     }
 
