@@ -117,38 +117,41 @@ public final class Cube {
         }
         double[] dep = new double[cells], unc = new double[cells];
         float[] nh = new float[cells];
+        double[] a = h.a;
         for (int k = 0; k < cells; k++) {
             int best = -1, count = 0;
-            for (int j = head[k]; j >= 0; j = h.next[j]) {
+            for (int j = head[k]; j >= 0; j = (int) h.a[j + NEXT]) {
                 count++;
-                if (best < 0 || better(h, j, best)) best = j;
+                if (best < 0 || better(h.a, j, best)) best = j;
             }
             nh[k] = count;
             if (best < 0) {
                 dep[k] = unc[k] = Double.NaN;
                 continue;
             }
-            dep[k] = h.mean[best];
-            double sd = h.count[best] > 1 ? Math.sqrt(h.m2[best] / (h.count[best] - 1)) : Double.NaN;
-            unc[k] = Gridder.maxDefined(Z95 * Math.sqrt(h.var[best]), Z95 * sd);
+            double c = a[best + COUNT];
+            dep[k] = a[best + MEAN];
+            double sd = c > 1 ? Math.sqrt(a[best + M2] / (c - 1)) : Double.NaN;
+            unc[k] = Gridder.maxDefined(Z95 * Math.sqrt(a[best + VAR]), Z95 * sd);
         }
         return new Result(dep, unc, nh);
     }
 
-    /** Disambiguation order: more soundings, then smaller variance, then shoaler, then earlier (j < best when created earlier). */
-    private static boolean better(Hyps h, int j, int best) {
-        if (h.count[j] != h.count[best]) return h.count[j] > h.count[best];
-        if (h.var[j] != h.var[best]) return h.var[j] < h.var[best];
-        if (h.mean[j] != h.mean[best]) return h.mean[j] < h.mean[best];
+    /** Disambiguation order: more soundings, then smaller variance, then shoaler, then earlier (smaller offset). */
+    private static boolean better(double[] a, int j, int best) {
+        if (a[j + COUNT] != a[best + COUNT]) return a[j + COUNT] > a[best + COUNT];
+        if (a[j + VAR] != a[best + VAR]) return a[j + VAR] < a[best + VAR];
+        if (a[j + MEAN] != a[best + MEAN]) return a[j + MEAN] < a[best + MEAN];
         return j < best;
     }
 
     private static void update(Hyps h, int[] head, int node, double d, double var, double threshold, int maxHyp) {
+        double[] a = h.a;
         int best = -1, last = -1, count = 0;
         double bestQ2 = Double.POSITIVE_INFINITY;
-        for (int j = head[node]; j >= 0; j = h.next[j]) {
-            double dz = d - h.mean[j];
-            double q2 = dz * dz / (h.var[j] + var);   // squared normalised innovation
+        for (int j = head[node]; j >= 0; j = (int) a[j + NEXT]) {
+            double dz = d - a[j + MEAN];
+            double q2 = dz * dz / (a[j + VAR] + var);   // squared normalised innovation
             if (q2 < bestQ2) {
                 bestQ2 = q2;
                 best = j;
@@ -157,54 +160,49 @@ public final class Cube {
             count++;
         }
         if (best >= 0 && bestQ2 <= threshold * threshold) {
-            double gain = h.var[best] / (h.var[best] + var);
-            h.mean[best] += gain * (d - h.mean[best]);
-            h.var[best] = (1 - gain) * h.var[best];
+            double v = a[best + VAR];
+            double gain = v / (v + var);
+            a[best + MEAN] += gain * (d - a[best + MEAN]);
+            a[best + VAR] = (1 - gain) * v;
             // Welford's running variance of the raw depths the hypothesis took
-            int c = ++h.count[best];
-            double delta = d - h.raw[best];
-            h.raw[best] += delta / c;
-            h.m2[best] += delta * (d - h.raw[best]);
+            double c = a[best + COUNT] + 1;
+            a[best + COUNT] = c;
+            double delta = d - a[best + RAW];
+            a[best + RAW] += delta / c;
+            a[best + M2] += delta * (d - a[best + RAW]);
             return;
         }
         if (count >= maxHyp) return;   // node full: TVU far below the real scatter; see Parameters
         int j = h.add(d, var);
         if (last < 0) head[node] = j;
-        else h.next[last] = j;
+        else h.a[last + NEXT] = j;
     }
 
-    /** Hypotheses of all nodes in growable parallel arrays (no object per hypothesis). */
+    // fields of one hypothesis, interleaved in one array so an update touches one or two cache lines
+    private static final int MEAN = 0, VAR = 1, RAW = 2, M2 = 3, COUNT = 4, NEXT = 5, STRIDE = 6;
+
+    /** Hypotheses of all nodes: records of STRIDE doubles in one growable array (no object per hypothesis). */
     private static final class Hyps {
-        double[] mean, var, raw, m2;
-        int[] count, next;
-        int size;
+        double[] a;
+        int size;   // in doubles
 
-        Hyps(int capacity) {
-            mean = new double[capacity];
-            var = new double[capacity];
-            raw = new double[capacity];
-            m2 = new double[capacity];
-            count = new int[capacity];
-            next = new int[capacity];
-        }
+        Hyps(int capacity) { a = new double[capacity * STRIDE]; }
 
+        /** Appends a one-sounding hypothesis; returns its offset. */
         int add(double d, double v) {
-            if (size == mean.length) {
-                int cap = mean.length + (mean.length >> 1) + 16;
-                mean = Arrays.copyOf(mean, cap);
-                var = Arrays.copyOf(var, cap);
-                raw = Arrays.copyOf(raw, cap);
-                m2 = Arrays.copyOf(m2, cap);
-                count = Arrays.copyOf(count, cap);
-                next = Arrays.copyOf(next, cap);
+            if (size == a.length) {
+                long cap = (long) a.length + (a.length >> 1) + 16 * STRIDE;
+                if (cap > Integer.MAX_VALUE - 8) throw new IllegalStateException("too many CUBE hypotheses");
+                a = Arrays.copyOf(a, (int) cap / STRIDE * STRIDE);
             }
-            int j = size++;
-            mean[j] = d;
-            var[j] = v;
-            raw[j] = d;
-            m2[j] = 0;
-            count[j] = 1;
-            next[j] = -1;
+            int j = size;
+            size += STRIDE;
+            a[j + MEAN] = d;
+            a[j + VAR] = v;
+            a[j + RAW] = d;
+            a[j + M2] = 0;
+            a[j + COUNT] = 1;
+            a[j + NEXT] = -1;
             return j;
         }
     }

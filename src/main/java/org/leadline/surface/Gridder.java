@@ -166,14 +166,17 @@ public final class Gridder {
 
         if (m == Method.CUBE) {
             Cube.Result r = Cube.estimate(g, e, n, depth, tvu, thu, cellOf, cubeP);
+            float[] hyp = r.hypotheses();
             for (int k = 0; k < cells; k++) {
                 if (cnt[k] > 0) {
                     dep[k] = (float) r.depth()[k];
                     unc[k] = (float) r.uncertainty()[k];
+                } else {
+                    hyp[k] = 0;   // a node of an empty cell reports nothing (see Cube: no filling of holidays)
                 }
             }
             g.putLayer(Grid.DEPTH, dep).putLayer(Grid.UNCERTAINTY, unc).putLayer(Grid.COUNT, cnt)
-                    .putLayer(Grid.STDDEV, sdv).putLayer(Cube.HYPOTHESES, r.hypotheses());
+                    .putLayer(Grid.STDDEV, sdv).putLayer(Cube.HYPOTHESES, hyp);
             return g;
         }
         return g.putLayer(Grid.DEPTH, dep).putLayer(Grid.UNCERTAINTY, unc).putLayer(Grid.COUNT, cnt)
