@@ -169,19 +169,47 @@ public final class SoundingSelection {
     /** Distinct buckets may share a key; that only adds candidates to check, never hides one. */
     private static long key(long bx, long by) { return bx * 0x9E3779B97F4A7C15L ^ by; }
 
-    /** Stable merge sort of indices by depth (ties keep index order). */
+    /**
+     * Stable sort of indices by depth (ties keep index order): bottom-up merge sort that carries the
+     * depth keys beside the indices, so merging reads memory in sequence instead of depth[idx[i]].
+     */
     static void sortByDepth(int[] idx, double[] depth) {
-        int[] tmp = new int[idx.length];
-        for (int width = 1; width < idx.length; width *= 2) {
-            for (int lo = 0; lo < idx.length - width; lo += 2 * width) {
-                int mid = lo + width, hi = Math.min(lo + 2 * width, idx.length);
-                if (depth[idx[mid - 1]] <= depth[idx[mid]]) continue;   // already in order
-                int a = lo, b = mid, t = lo;
-                while (a < mid && b < hi) tmp[t++] = depth[idx[b]] < depth[idx[a]] ? idx[b++] : idx[a++];
-                while (a < mid) tmp[t++] = idx[a++];
-                while (b < hi) tmp[t++] = idx[b++];
-                System.arraycopy(tmp, lo, idx, lo, hi - lo);
+        int len = idx.length;
+        double[] key = new double[len], keyTmp = new double[len];
+        int[] tmp = new int[len];
+        for (int i = 0; i < len; i++) key[i] = depth[idx[i]];
+        // insertion sort of runs of 16
+        final int run = 16;
+        for (int lo = 0; lo < len; lo += run) {
+            int hi = Math.min(lo + run, len);
+            for (int i = lo + 1; i < hi; i++) {
+                double k = key[i];
+                int v = idx[i], j = i - 1;
+                while (j >= lo && key[j] > k) {
+                    key[j + 1] = key[j];
+                    idx[j + 1] = idx[j];
+                    j--;
+                }
+                key[j + 1] = k;
+                idx[j + 1] = v;
             }
         }
+        int[] src = idx, dst = tmp;
+        double[] ks = key, kd = keyTmp;
+        for (int width = run; width < len; width *= 2) {
+            for (int lo = 0; lo < len; lo += 2 * width) {
+                int mid = Math.min(lo + width, len), hi = Math.min(lo + 2 * width, len);
+                int a = lo, b = mid, t = lo;
+                while (a < mid && b < hi) {
+                    if (ks[b] < ks[a]) { kd[t] = ks[b]; dst[t++] = src[b++]; }
+                    else { kd[t] = ks[a]; dst[t++] = src[a++]; }
+                }
+                while (a < mid) { kd[t] = ks[a]; dst[t++] = src[a++]; }
+                while (b < hi) { kd[t] = ks[b]; dst[t++] = src[b++]; }
+            }
+            int[] si = src; src = dst; dst = si;
+            double[] sk = ks; ks = kd; kd = sk;
+        }
+        if (src != idx) System.arraycopy(src, 0, idx, 0, len);
     }
 }

@@ -88,4 +88,20 @@ class SoundingSelectionTest {
                 new double[]{12, 10, 11}, null, 1.0);
         assertThat(sel).containsExactly(1, 0);
     }
+
+    @Test
+    void depthSortIsStableAndOrdered() {
+        Random r = new Random(13);
+        for (int len : new int[]{0, 1, 15, 16, 17, 100, 1000, 4097}) {
+            double[] d = new double[len];
+            for (int i = 0; i < len; i++) d[i] = r.nextInt(20);
+            int[] idx = new int[len];
+            for (int i = 0; i < len; i++) idx[i] = i;
+            SoundingSelection.sortByDepth(idx, d);
+            for (int k = 1; k < len; k++) {
+                assertThat(d[idx[k]]).isGreaterThanOrEqualTo(d[idx[k - 1]]);
+                if (d[idx[k]] == d[idx[k - 1]]) assertThat(idx[k]).isGreaterThan(idx[k - 1]);
+            }
+        }
+    }
 }
