@@ -59,7 +59,7 @@ class CubeTest {
     }
 
     @Test
-    void distanceInflatesTheVarianceAsPublished() {
+    void distanceInflatesTheVarianceAsDocumented() {
         // one sounding 1 m from its node, sigma_v = 0.1 m, cell 2 m, no THU:
         // sigma_n^2 = 0.01 * (1 + (1 / 2)^2) = 0.0125 (worked by hand), so the 95 % uncertainty of the
         // one-sounding hypothesis is 1.96 * sqrt(0.0125) = 0.21913
