@@ -10,6 +10,11 @@ set -euo pipefail
 here="$(cd "$(dirname "$0")" && pwd)"
 out="$here/../../src/test/resources/reference/gmt"
 mkdir -p "$out"
+out="$(cd "$out" && pwd)"
+# run GMT in a scratch folder so its gmt.history does not land in the repository
+work="$(mktemp -d)"
+trap 'rm -rf "$work"' EXIT
+cd "$work"
 R=-R0/100/0/80
 I=-I5
 fmt=--FORMAT_FLOAT_OUT=%.17g
