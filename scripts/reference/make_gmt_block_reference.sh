@@ -5,6 +5,8 @@
 #   blockmean.xyz     cell centre x y, mean z          (gmt blockmean  -r -C)
 #   blockmedian.xyz   cell centre x y, median z        (gmt blockmedian -r -C)
 #   blockcount.xyz    cell centre x y, count            (gmt blockmean  -r -C -Sn)
+#   blockmean_extended.xyz  x y mean s low high         (gmt blockmean  -r -C -E; s = sample
+#                     standard deviation, n - 1 denominator; low = least z, the shoalest depth)
 # Region 0/100/0/80, 5 m cells, pixel registration (a value belongs to the cell it falls in).
 set -euo pipefail
 here="$(cd "$(dirname "$0")" && pwd)"
@@ -22,5 +24,6 @@ python3 "$here/gmt_block_points.py" > "$out/points.xyz"
 gmt blockmean   "$out/points.xyz" $R $I -r -C $fmt > "$out/blockmean.xyz"
 gmt blockmedian "$out/points.xyz" $R $I -r -C $fmt > "$out/blockmedian.xyz"
 gmt blockmean   "$out/points.xyz" $R $I -r -C -Sn $fmt > "$out/blockcount.xyz"
+gmt blockmean   "$out/points.xyz" $R $I -r -C -E $fmt > "$out/blockmean_extended.xyz"
 gmt --version > "$out/gmt-version.txt"
 wc -l "$out"/*.xyz
