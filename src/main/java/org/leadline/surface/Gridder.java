@@ -131,12 +131,16 @@ public final class Gridder {
         // pass 1: cell of each usable sounding, and counts per cell
         int[] cellOf = new int[size];
         int[] start = new int[cells + 1];
+        int noTvu = 0;
         for (int i = 0; i < size; i++) {
             cellOf[i] = -1;
             if (accepted != null && !accepted[i]) continue;
             double z = depth[i];
             if (!Double.isFinite(z)) continue;
-            if (needTvu && !(tvu[i] > 0 && tvu[i] < Double.POSITIVE_INFINITY)) continue;
+            if (needTvu && !(tvu[i] > 0 && tvu[i] < Double.POSITIVE_INFINITY)) {
+                noTvu++;
+                continue;
+            }
             int c = g.col(e[i]), r = g.row(n[i]);
             if (c < 0 || r < 0) continue;
             int k = r * nx + c;
@@ -145,6 +149,10 @@ public final class Gridder {
         }
         for (int k = 0; k < cells; k++) start[k + 1] += start[k];
         int total = start[cells];
+        if (total == 0 && noTvu > 0) {
+            throw new IllegalArgumentException("surface method " + m.label() + " needs each sounding's TVU; none of "
+                    + noTvu + " accepted soundings has a finite positive TVU (estimate uncertainty first)");
+        }
 
         // pass 2: scatter depth (and TVU) into cell order; stable, so each slice is in index order
         double[] zs = new double[total];

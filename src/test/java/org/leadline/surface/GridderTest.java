@@ -107,4 +107,29 @@ class GridderTest {
             assertThat(Select.median(a, 0, len)).isEqualTo(expect);
         }
     }
+
+    @Test
+    void soundingTableOverloadUsesStatusAndColumns() {
+        org.leadline.survey.SoundingTable t = new org.leadline.survey.SoundingTable(4, java.util.List.of("L1"));
+        double[] d = {10, 11, 30, 12};
+        for (int i = 0; i < 4; i++) {
+            t.easting[i] = 1 + i;
+            t.northing[i] = 5;
+            t.depth[i] = d[i];
+            t.tvu[i] = 0.2;
+            t.thu[i] = 0.5;
+        }
+        t.reject(2, org.leadline.survey.SoundingTable.Reason.SPIKE);
+        Grid g = Gridder.build(SPEC, null, t, Gridder.Method.MEDIAN);
+        assertThat(g.layer(Grid.COUNT)[0]).isEqualTo(3f);
+        assertThat(g.layer(Grid.DEPTH)[0]).isEqualTo(11f);
+        Grid c = Gridder.build(SPEC, null, t, Gridder.Method.CUBE);
+        assertThat(c.layer(Grid.COUNT)[0]).isEqualTo(3f);
+        assertThat((double) c.layer(Grid.DEPTH)[0]).isBetween(10.0, 12.0);
+        // before uncertainty is estimated (TVU NaN) the TVU-based methods refuse instead of gridding nothing
+        java.util.Arrays.fill(t.tvu, Double.NaN);
+        org.assertj.core.api.Assertions.assertThatThrownBy(() -> Gridder.build(SPEC, null, t, Gridder.Method.WEIGHTED))
+                .hasMessageContaining("none of 3 accepted soundings has a finite positive TVU");
+        assertThat(Gridder.build(SPEC, null, t, Gridder.Method.MEAN).layer(Grid.DEPTH)[0]).isEqualTo(11f);
+    }
 }
