@@ -83,6 +83,15 @@ class SyntheticShoalTest {
     }
 
     @Test
+    void parallelRowsGiveIdenticalResultsRunToRun() {
+        Grid a = Gridder.build(SPEC, null, e, n, d, t, null, Gridder.Method.MEDIAN);
+        Grid b = Gridder.build(SPEC, null, e, n, d, t, null, Gridder.Method.MEDIAN);
+        for (String layer : List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV)) {
+            assertThat(b.layer(layer)).as(layer).containsExactly(a.layer(layer));
+        }
+    }
+
+    @Test
     void shoalestIsNeverDeeperThanAnySoundingInItsCell() {
         Grid g = Gridder.build(SPEC, null, e, n, d, t, null, Gridder.Method.SHOALEST);
         Grid mean = Gridder.build(SPEC, null, e, n, d, t, null, Gridder.Method.MEAN);
