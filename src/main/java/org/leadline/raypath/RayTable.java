@@ -58,8 +58,12 @@ public final class RayTable {
     private final double ht, invHt;        // path-table time step, s
     private final int nRays;               // stored rays, including the mirrored one at index 0
     private final int nz, nt;
-    private final double[] start;          // [ray][z][T, hz T', X, hz X']
-    private final double[] path;           // [ray][tau][Z, ht Z', X, ht X']
+    // layout [grid node][ray][value]: the four rays of a stencil at one node are adjacent in memory
+    private final double[] start;          // [z][ray][T, hz T', X, hz X']
+    private final double[] path;           // [tau][ray][Z, ht Z', X, ht X']
+    // sound speed over the band: c(z) at the start-table nodes, m/s, linear inside a cell unless a
+    // profile sample lies strictly inside it (then the cell is flagged with NaN and the profile is asked)
+    private final double[] bandSpeed;
 
     /**
      * A table with the default grids.
@@ -145,6 +149,15 @@ public final class RayTable {
         this.ht = timeStep;
         this.invHt = 1 / ht;
 
+        this.bandSpeed = new double[nz];
+        for (int i = 0; i < nz; i++) bandSpeed[i] = profile.speedAt(zMin + i * hz);
+        for (int i = 0; i + 1 < nz; i++) {
+            double za = zMin + i * hz, zb = za + hz;
+            for (int q = 0; q < profile.size(); q++) {
+                if (profile.depth(q) > za && profile.depth(q) < zb) { bandSpeed[i] = Double.NaN; break; }
+            }
+        }
+
         double maxSin = Math.sin(grazing);
         double[] tmp = new double[4];
         this.start = new double[nRays * nz * 4];
@@ -159,7 +172,7 @@ public final class RayTable {
                 } else {
                     tracer.descend(zMin, z, p, maxSin, tmp);
                 }
-                int b = (m * nz + i) * 4;
+                int b = (i * nRays + m) * 4;
                 start[b] = tmp[0];
                 start[b + 1] = hz * tmp[2];
                 start[b + 2] = tmp[1];
@@ -167,7 +180,7 @@ public final class RayTable {
                 if (tmp[0] > t0Max) t0Max = tmp[0];
             }
         }
-        mirror(start, nz);
+        mirror(start, nz, nRays);
 
         this.nt = (int) Math.ceil((t0Max + maxTime) / ht) + 2;
         this.path = new double[nRays * nt * 4];
@@ -187,7 +200,7 @@ public final class RayTable {
                 filled = tracer.sampleDown(zMin, p, ht, nt, zs, zr, xs, xr, maxSin);
             }
             for (int k = 0; k < nt; k++) {
-                int b = (m * nt + k) * 4;
+                int b = (k * nRays + m) * 4;
                 boolean ok = k < filled;
                 path[b] = ok ? zs[k] : Double.NaN;
                 path[b + 1] = ok ? ht * zr[k] : Double.NaN;
@@ -195,7 +208,7 @@ public final class RayTable {
                 path[b + 3] = ok ? ht * xr[k] : Double.NaN;
             }
         }
-        mirror(path, nt);
+        mirror(path, nt, nRays);
     }
 
     /** Ray parameter p of stored ray m, s/m (ray 1 is vertical; ray 0 its mirror). */
@@ -205,9 +218,9 @@ public final class RayTable {
     }
 
     /** Fills ray 0 (w = -hw) as the mirror image of ray 2: depth and time even, distance odd in p. */
-    private void mirror(double[] table, int len) {
+    private static void mirror(double[] table, int len, int rays) {
         for (int k = 0; k < len; k++) {
-            int src = (2 * len + k) * 4, dst = k * 4;
+            int src = (k * rays + 2) * 4, dst = k * rays * 4;
             table[dst] = table[src];
             table[dst + 1] = table[src + 1];
             table[dst + 2] = -table[src + 2];
@@ -244,7 +257,12 @@ public final class RayTable {
         if (!(startDepth >= zMin && startDepth <= zMax && a <= maxAngle && oneWayTime >= 0 && oneWayTime <= maxTime)) {
             return false;
         }
-        double s = Math.sin(a) * cRef / profile.speedAt(startDepth);
+        double uz = (startDepth - zMin) * invHz;
+        int iz = Math.min((int) uz, nz - 2);
+        double fz = uz - iz;
+        double ca = bandSpeed[iz];
+        double cz = ca == ca ? ca + fz * (bandSpeed[iz + 1] - ca) : profile.speedAt(startDepth);
+        double s = Math.sin(a) * cRef / cz;
         double u = s / Math.sqrt((1 - s) * (1 + s)) * invHw;
         int j = (int) u;                       // stencil: stored rays j .. j+3 (w nodes j-1 .. j+2)
         double f = u - j;
@@ -254,42 +272,40 @@ public final class RayTable {
         double l2 = -fp1 * f * fm2 * 0.5;
         double l3 = fp1 * f * fm1 * (1.0 / 6);
 
-        double uz = (startDepth - zMin) * invHz;
-        int iz = Math.min((int) uz, nz - 2);
-        double fz = uz - iz;
-        double t0 = 0, x0 = 0;
-        int bz = (j * nz + iz) * 4;
-        int strideZ = nz * 4;
-        for (int m = 0; m < 4; m++) {
-            double l = m == 0 ? l0 : m == 1 ? l1 : m == 2 ? l2 : l3;
-            int b = bz + m * strideZ;
-            t0 += l * hermite(start[b], start[b + 1], start[b + 4], start[b + 5], fz);
-            x0 += l * hermite(start[b + 2], start[b + 3], start[b + 6], start[b + 7], fz);
-        }
+        // cubic Hermite basis on the depth cell (slopes are stored pre-multiplied by the step)
+        double a00 = (1 + 2 * fz) * (1 - fz) * (1 - fz), a10 = fz * (1 - fz) * (1 - fz);
+        double a01 = fz * fz * (3 - 2 * fz), a11 = fz * fz * (fz - 1);
+        double[] st = start;
+        int b0 = (iz * nRays + j) * 4, b1 = b0 + nRays * 4;
+        double t0 = l0 * (a00 * st[b0] + a10 * st[b0 + 1] + a01 * st[b1] + a11 * st[b1 + 1])
+                + l1 * (a00 * st[b0 + 4] + a10 * st[b0 + 5] + a01 * st[b1 + 4] + a11 * st[b1 + 5])
+                + l2 * (a00 * st[b0 + 8] + a10 * st[b0 + 9] + a01 * st[b1 + 8] + a11 * st[b1 + 9])
+                + l3 * (a00 * st[b0 + 12] + a10 * st[b0 + 13] + a01 * st[b1 + 12] + a11 * st[b1 + 13]);
+        double x0 = l0 * (a00 * st[b0 + 2] + a10 * st[b0 + 3] + a01 * st[b1 + 2] + a11 * st[b1 + 3])
+                + l1 * (a00 * st[b0 + 6] + a10 * st[b0 + 7] + a01 * st[b1 + 6] + a11 * st[b1 + 7])
+                + l2 * (a00 * st[b0 + 10] + a10 * st[b0 + 11] + a01 * st[b1 + 10] + a11 * st[b1 + 11])
+                + l3 * (a00 * st[b0 + 14] + a10 * st[b0 + 15] + a01 * st[b1 + 14] + a11 * st[b1 + 15]);
 
         double ut = (t0 + oneWayTime) * invHt;
         int k = (int) ut;
         if (!(k >= 0 && k < nt - 1)) return false;
         double ft = ut - k;
-        double zz = 0, xx = 0;
-        int bt = (j * nt + k) * 4;
-        int strideT = nt * 4;
-        for (int m = 0; m < 4; m++) {
-            double l = m == 0 ? l0 : m == 1 ? l1 : m == 2 ? l2 : l3;
-            int b = bt + m * strideT;
-            zz += l * hermite(path[b], path[b + 1], path[b + 4], path[b + 5], ft);
-            xx += l * hermite(path[b + 2], path[b + 3], path[b + 6], path[b + 7], ft);
-        }
+        double c00 = (1 + 2 * ft) * (1 - ft) * (1 - ft), c10 = ft * (1 - ft) * (1 - ft);
+        double c01 = ft * ft * (3 - 2 * ft), c11 = ft * ft * (ft - 1);
+        double[] pa = path;
+        int p0 = (k * nRays + j) * 4, p1 = p0 + nRays * 4;
+        double zz = l0 * (c00 * pa[p0] + c10 * pa[p0 + 1] + c01 * pa[p1] + c11 * pa[p1 + 1])
+                + l1 * (c00 * pa[p0 + 4] + c10 * pa[p0 + 5] + c01 * pa[p1 + 4] + c11 * pa[p1 + 5])
+                + l2 * (c00 * pa[p0 + 8] + c10 * pa[p0 + 9] + c01 * pa[p1 + 8] + c11 * pa[p1 + 9])
+                + l3 * (c00 * pa[p0 + 12] + c10 * pa[p0 + 13] + c01 * pa[p1 + 12] + c11 * pa[p1 + 13]);
+        double xx = l0 * (c00 * pa[p0 + 2] + c10 * pa[p0 + 3] + c01 * pa[p1 + 2] + c11 * pa[p1 + 3])
+                + l1 * (c00 * pa[p0 + 6] + c10 * pa[p0 + 7] + c01 * pa[p1 + 6] + c11 * pa[p1 + 7])
+                + l2 * (c00 * pa[p0 + 10] + c10 * pa[p0 + 11] + c01 * pa[p1 + 10] + c11 * pa[p1 + 11])
+                + l3 * (c00 * pa[p0 + 14] + c10 * pa[p0 + 15] + c01 * pa[p1 + 14] + c11 * pa[p1 + 15]);
         double dz = zz - startDepth, dx = xx - x0;
         if (Double.isNaN(dz + dx)) return false; // a node in the stencil is past the grazing limit
         out[0] = dz;
         out[1] = launchAngle < 0 ? -dx : dx;
         return true;
-    }
-
-    /** Cubic Hermite on the unit interval; slopes already multiplied by the step. */
-    private static double hermite(double y0, double m0, double y1, double m1, double f) {
-        double d = y1 - y0;
-        return y0 + f * (m0 + f * ((3 * d - 2 * m0 - m1) + f * (m0 + m1 - 2 * d)));
     }
 }

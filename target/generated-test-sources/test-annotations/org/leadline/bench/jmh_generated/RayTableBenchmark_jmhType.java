@@ -1,0 +1,4 @@
+package org.leadline.bench.jmh_generated;
+public class RayTableBenchmark_jmhType extends RayTableBenchmark_jmhType_B3 {
+}
+
