@@ -13,8 +13,8 @@ import org.leadline.watercolumn.SoundSpeedProfile;
  * layer of constant speed (including the water above the first sample and below the last, where the
  * profile is held constant) the ray is a straight line. The closed forms used inside a layer, from
  * {@code dx = tan(theta) dz}, {@code dt = dz/(c cos(theta))} and {@code c = sin(theta)/p}, are
- * (Medwin and Clay 1998, "Fundamentals of Acoustical Oceanography", sect. 3.6; Jensen, Kuperman,
- * Porter and Schmidt 2011, "Computational Ocean Acoustics", 2nd ed., sect. 3.2):
+ * (Medwin and Clay 1998, "Fundamentals of Acoustical Oceanography", ch. 3; Jensen, Kuperman,
+ * Porter and Schmidt 2011, "Computational Ocean Acoustics", 2nd ed., ch. 3; chapters from memory):
  * <pre>
  *   x2 - x1 = (cos th1 - cos th2) / (p g)                = p dz (c1 + c2) / (cos th1 + cos th2)
  *   t2 - t1 = ln( tan(th2/2) / tan(th1/2) ) / g          so tan(th/2) = tan(th1/2) exp(g t)

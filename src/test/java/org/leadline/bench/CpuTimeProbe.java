@@ -2,7 +2,6 @@ package org.leadline.bench;
 
 import java.lang.management.ManagementFactory;
 import java.lang.management.ThreadMXBean;
-import java.util.List;
 import java.util.SplittableRandom;
 import org.leadline.raypath.RayTable;
 import org.leadline.raypath.RayTracer;
@@ -17,8 +16,7 @@ public final class CpuTimeProbe {
     private CpuTimeProbe() {}
 
     public static void main(String[] args) {
-        SoundSpeedProfile p = new SoundSpeedProfile(new double[]{0, 0.5, 15, 60},
-                new double[]{1522, 1530, 1480, 1495}, List.of());
+        SoundSpeedProfile p = RayTableBenchmark.profile(args.length > 0 ? args[0] : "strong");
         RayTable table = RayTable.forDepth(p, 0, 10, Math.toRadians(75), 120);
         RayTracer tracer = new RayTracer(p);
         int n = 1 << 16;

@@ -73,7 +73,7 @@ class RayTracerTest {
     @Test
     void constantGradientLayerFollowsItsCircularArc() {
         // c = 1500 + 0.5 z (one layer spanning the whole path): the ray is a circle of radius 1/(p g) whose
-        // centre lies where c would vanish, z_c = -1500/0.5 = -3000 m (Medwin and Clay 1998, sect. 3.6).
+        // centre lies where c would vanish, z_c = -1500/0.5 = -3000 m (Medwin and Clay 1998, ch. 3; chapter from memory).
         SoundSpeedProfile p = new SoundSpeedProfile(new double[]{0, 1000}, new double[]{1500, 2000}, List.of());
         RayTracer tracer = new RayTracer(p);
         double a = Math.toRadians(40), zs = 10;
@@ -91,7 +91,7 @@ class RayTracerTest {
 
     /**
      * Ray equations in a depth-dependent medium c(z), Jensen, Kuperman, Porter and Schmidt 2011,
-     * "Computational Ocean Acoustics", sect. 3.2 (dr/ds = c xi, dz/ds = c zeta, d xi/ds = 0,
+     * "Computational Ocean Acoustics", ch. 3, chapter from memory (dr/ds = c xi, dz/ds = c zeta, d xi/ds = 0,
      * d zeta/ds = -c_z / c^2), rewritten with time as the variable (d/dt = c d/ds).
      * State: x, z, xi, zeta. Integrated by Dormand-Prince 8(5,3) with an event at each profile sample so
      * no step straddles a kink of c(z).
@@ -216,7 +216,7 @@ class RayTracerTest {
                     double dx = x2 - x1, dz = z2 - z1;
                     double speed = Math.hypot(dx, dz) / 1e-6;      // chord speed = local c
                     double sinTheta = Math.abs(dx) / Math.hypot(dx, dz);
-                    // Snell's law: sin(theta)/c constant along the ray (Medwin and Clay 1998, eq. of sect. 3.6)
+                    // Snell's law: sin(theta)/c constant along the ray (Snell 1621; Medwin and Clay 1998, ch. 3)
                     assertThat(sinTheta / speed).as("%s deg at %s m", deg, boundary)
                             .isCloseTo(invariant, within(invariant * 1e-6));
                     assertThat(speed).isCloseTo(p.speedAt(zs + (z1 + z2) / 2), within(1e-3));

@@ -337,6 +337,10 @@ public final class RayTableBenchmark_exactTrace_jmhTest {
         RayTableBenchmark_jmhType val = f_raytablebenchmark0_0;
         if (val == null) {
             val = new RayTableBenchmark_jmhType();
+                Field f;
+                f = org.leadline.bench.RayTableBenchmark.class.getDeclaredField("profile");
+                f.setAccessible(true);
+                f.set(val, control.getParam("profile"));
             val.setUp();
             f_raytablebenchmark0_0 = val;
         }
