@@ -11,6 +11,8 @@ final class Commands {
         List<Object> c = new ArrayList<>();
         c.add(new BarcheckCommand());
         c.add(new CastCommand());
+        c.add(new ProcessCommand());
+        c.add(new DemoCommand());
         return c;
     }
 }

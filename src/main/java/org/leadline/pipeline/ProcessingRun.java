@@ -83,7 +83,7 @@ public final class ProcessingRun {
         checkCancel();
 
         progress.stage("Reducing soundings");
-        MapProjection projection = MapProjection.parse(set.crs(), in.lat, in.lon);
+        MapProjection projection = configured("crs", () -> MapProjection.parse(set.crs(), in.lat, in.lon));
         Reducer.MergedInputs merged = new Reducer.MergedInputs(in.lat, in.lon, in.heading, in.heave, in.roll, in.pitch,
                 in.sog, in.mergeReason);
         Reducer.WaterLevelAt level = in.waterLevel == null ? (t, la, lo) -> 0.0 : in.waterLevel::level;
@@ -106,7 +106,7 @@ public final class ProcessingRun {
         checkCancel();
 
         progress.stage("Cleaning");
-        CleaningSettings cs = CleaningSettings.fromMap(set.cleaning());
+        CleaningSettings cs = configured("cleaning", () -> CleaningSettings.fromMap(set.cleaning()));
         CleaningStats stats = Cleaner.clean(s, in.pings.quality, cs);
         int journalEdits = 0;
         if (project.journal() != null) {
@@ -127,8 +127,11 @@ public final class ProcessingRun {
         int nAcc = 0;
         for (int i = 0; i < n; i++) if (acc[i] = s.accepted(i) && Double.isFinite(s.easting[i])) nAcc++;
         if (nAcc == 0) {
+            Map<String, Integer> why = new java.util.TreeMap<>();
+            for (int i = 0; i < n; i++) why.merge(SoundingTable.Reason.of(s.reason[i]).label, 1, Integer::sum);
             throw new org.leadline.io.InputException((String) null, 0, 0,
-                    "no accepted soundings to grid: every ping was rejected (see soundings.csv reasons)", null);
+                    "no accepted soundings to grid: all " + n + " were rejected " + why
+                            + " (check that navigation, attitude and water-level records cover the ping times)", null);
         }
         double cell = Double.isFinite(set.cell()) ? set.cell()
                 : GridSpec.suggestCell(select(s.depth, acc), in.vessel.beamWidth());
@@ -340,6 +343,15 @@ public final class ProcessingRun {
         k = 0;
         for (int i = 0; i < a.length; i++) if (keep[i]) out[k++] = a[i];
         return out;
+    }
+
+    /** A setting that the library refuses is bad input (exit 2), named by its key. */
+    private static <T> T configured(String key, java.util.function.Supplier<T> make) {
+        try {
+            return make.get();
+        } catch (IllegalArgumentException e) {
+            throw new org.leadline.io.InputException((String) null, 0, 0, "setting '" + key + "': " + e.getMessage(), e);
+        }
     }
 
     private void checkCancel() {
