@@ -13,6 +13,7 @@ final class Commands {
         c.add(new CastCommand());
         c.add(new ProcessCommand());
         c.add(new DemoCommand());
+        c.add(new WorkbenchCommand());
         return c;
     }
 }
