@@ -189,7 +189,9 @@ public final class TpuModel {
     private double rayDepth(SoundingTable t, int i, double[] heave) {
         double sd = t.surfaceDepth[i];
         if (!Double.isFinite(sd)) return Double.NaN;
-        double z = sd - (vessel.transducerDraft() + vessel.settlement(t.speedOverGround[i]) - value(heave, i, 0));
+        double h = value(heave, i, 0);
+        if (Double.isNaN(h)) h = 0; // no heave record for this ping (e.g. no motion sensor): as terms() does
+        double z = sd - (vessel.transducerDraft() + vessel.settlement(t.speedOverGround[i]) - h);
         return Math.max(z, 0);
     }
 

@@ -97,6 +97,7 @@ final class CastsView extends JPanel {
     }
 
     CastsModel model() { return model; }
+    JList<String> castList() { return list; }
     JComboBox<SoundSpeedEquation> equationBox() { return equation; }
 
     private void showCast() {
@@ -120,13 +121,23 @@ final class CastsView extends JPanel {
         charts.repaint();
     }
 
-    private ChartPanel chart(int k, CastsModel.Quantity q) {
+    private javax.swing.JComponent chart(int k, CastsModel.Quantity q) {
+        if (model.profilePoints(k, q).isEmpty() && model.rawPoints(k, q).isEmpty()) {
+            JLabel none = new JLabel("<html><center>" + q.label + "<br>not measured in this cast</center></html>",
+                    javax.swing.SwingConstants.CENTER);
+            none.setForeground(java.awt.Color.GRAY);
+            none.setBorder(BorderFactory.createLineBorder(java.awt.Color.LIGHT_GRAY));
+            return none;
+        }
         XYSeriesCollection data = new XYSeriesCollection();
         data.addSeries(series("Profile", model.profilePoints(k, q)));
         data.addSeries(series("Samples", model.rawPoints(k, q)));
         data.addSeries(series("Rejected by QC", model.rejectedPoints(k, q)));
         NumberAxis x = new NumberAxis(q.label);
         x.setAutoRangeIncludesZero(false);
+        // a constant profile (a velocimeter cast in mixed water) still gets a readable axis
+        x.setAutoRangeMinimumSize(q == CastsModel.Quantity.SOUND_SPEED ? 2.0 : 0.5);
+        x.setNumberFormatOverride(new java.text.DecimalFormat(q == CastsModel.Quantity.SOUND_SPEED ? "0.0" : "0.00"));
         NumberAxis depth = new NumberAxis("Depth (m)");
         depth.setInverted(true); // depth increases downwards
         depth.setAutoRangeIncludesZero(true);
@@ -149,10 +160,6 @@ final class CastsView extends JPanel {
         ChartPanel p = new ChartPanel(chart, false, false, false, true, false);
         p.setMinimumDrawWidth(10);
         p.setMinimumDrawHeight(10);
-        if (data.getSeries(0).getItemCount() == 0) {
-            chart.setTitle(q.label + " (not measured)");
-            Charts.style(chart);
-        }
         return p;
     }
 

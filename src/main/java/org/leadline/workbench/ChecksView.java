@@ -37,12 +37,12 @@ import java.util.Locale;
 final class ChecksView extends JPanel {
     private final JComboBox<S44Order> order = new JComboBox<>(S44Order.values());
     private final DefaultTableModel complianceRows = new DefaultTableModel(
-            new String[] {"Depth band", "Soundings", "Within TVU %", "Within THU %", "Within both %", "Mean TVU (m)",
-                    "Mean THU (m)", "Largest TVU / limit"}, 0) {
+            new String[] {"Depth band", "Soundings", "TVU ok %", "THU ok %", "Both ok %", "Mean TVU m",
+                    "Mean THU m", "Max TVU/limit"}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     private final DefaultTableModel crossRows = new DefaultTableModel(
-            new String[] {"Depth band", "Compared", "Mean difference (m)", "Std deviation (m)", "Within TVU limit %"}, 0) {
+            new String[] {"Depth band", "Compared", "Mean difference m", "Std deviation m", "Within TVU limit %"}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     private final JLabel complianceTitle = new JLabel();
@@ -108,28 +108,40 @@ final class ChecksView extends JPanel {
         double[] tvu = new double[s.size];
         int k = 0;
         for (int i = 0; i < s.size; i++) if (s.accepted(i) && Double.isFinite(s.tvu[i])) tvu[k++] = s.tvu[i];
+        // the order's TVU limit at the median depth, as a reference line; the axis runs from 0 to
+        // past both the limit and the largest TVU, so the margin to the limit is seen at a glance
+        S44Order o = (S44Order) order.getSelectedItem();
+        double lim = Double.NaN, median = Double.NaN;
+        double[] d = new double[s.size];
+        int m = 0;
+        for (int i = 0; i < s.size; i++) if (s.accepted(i) && Double.isFinite(s.depth[i])) d[m++] = s.depth[i];
+        if (o != null && m > 0) {
+            java.util.Arrays.sort(d, 0, m);
+            median = d[m / 2];
+            lim = o.tvuLimit(median);
+        }
+        double max = 0;
+        for (int j = 0; j < k; j++) max = Math.max(max, tvu[j]);
+        double upper = 1.1 * Math.max(max, Double.isFinite(lim) ? lim : 0);
         HistogramDataset data = new HistogramDataset();
-        if (k > 0) data.addSeries("TVU", java.util.Arrays.copyOf(tvu, k), 30);
+        if (k > 0 && upper > 0) data.addSeries("TVU", java.util.Arrays.copyOf(tvu, k), 50, 0, upper);
         NumberAxis x = new NumberAxis("TVU, 95 % (m)");
-        x.setAutoRangeIncludesZero(false);
+        if (upper > 0) x.setRange(0, upper);
         NumberAxis y = new NumberAxis("Accepted soundings");
         XYBarRenderer r = new XYBarRenderer(0.05);
         r.setBarPainter(new StandardXYBarPainter());
         r.setShadowVisible(false);
         r.setSeriesPaint(0, Charts.ACCEPTED);
         XYPlot plot = new XYPlot(data, x, y, r);
-        S44Order o = (S44Order) order.getSelectedItem();
-        if (o != null) { // the order's TVU limit at the median depth, as a reference line
-            double[] d = new double[s.size];
-            int m = 0;
-            for (int i = 0; i < s.size; i++) if (s.accepted(i) && Double.isFinite(s.depth[i])) d[m++] = s.depth[i];
-            if (m > 0) {
-                java.util.Arrays.sort(d, 0, m);
-                double lim = o.tvuLimit(d[m / 2]);
+        if (Double.isFinite(lim)) {
+            {
                 ValueMarker mk = new ValueMarker(lim, Charts.REJECTED, new BasicStroke(2f));
-                mk.setLabel(String.format(Locale.ROOT, "%s limit at median depth %.1f m: %.2f m", o.label(), d[m / 2], lim));
-                mk.setLabelAnchor(RectangleAnchor.TOP_LEFT);
-                mk.setLabelTextAnchor(TextAnchor.TOP_RIGHT);
+                mk.setLabel(String.format(Locale.ROOT, "%s TVU limit at %.1f m: %.2f m", o.label(), median, lim));
+                boolean leftHalf = lim < plotMid(data);
+                mk.setLabelAnchor(leftHalf ? RectangleAnchor.TOP_RIGHT : RectangleAnchor.TOP_LEFT);
+                mk.setLabelTextAnchor(leftHalf ? TextAnchor.TOP_LEFT : TextAnchor.TOP_RIGHT);
+                mk.setLabelOffset(new org.jfree.chart.ui.RectangleInsets(6, 6, 6, 6));
+                mk.setLabelFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, 11));
                 plot.addDomainMarker(mk);
             }
         }
@@ -137,6 +149,12 @@ final class ChecksView extends JPanel {
                 JFreeChart.DEFAULT_TITLE_FONT, plot, false);
         Charts.style(chart);
         return new ChartPanel(chart, false, true, false, false, true);
+    }
+
+    /** Middle of the histogram's x range (to put the limit's label on the roomier side). */
+    private static double plotMid(HistogramDataset d) {
+        if (d.getSeriesCount() == 0 || d.getItemCount(0) == 0) return 0;
+        return (d.getStartXValue(0, 0) + d.getEndXValue(0, d.getItemCount(0) - 1)) / 2;
     }
 
     private void showCompliance() {

@@ -73,12 +73,12 @@ final class TestSurvey {
         }
         Files.writeString(dir.resolve("cast-ctd.csv"), c2);
 
-        StringBuilder w = new StringBuilder("time,level\n");
+        StringBuilder wl = new StringBuilder("time,level\n");
         for (double tt = T0 - 600; tt <= t + 600; tt += 300) {
-            w.append(Instant.ofEpochSecond((long) tt)).append(',')
+            wl.append(Instant.ofEpochSecond((long) tt)).append(',')
                     .append(String.format(Locale.ROOT, "%.4f", level(tt))).append('\n');
         }
-        Files.writeString(dir.resolve("tide.csv"), w);
+        Files.writeString(dir.resolve("tide.csv"), wl);
 
         Files.writeString(dir.resolve("vessel.yaml"), "name: Test launch\ndraft_m: " + DRAFT + "\n"
                 + "sounder:\n  set_speed_m_s: 1500\n  beam_width_deg: 8\n");
