@@ -175,14 +175,27 @@ public final class WorkbenchGuiScenario {
         put("complianceRows", onEdt(() -> f.checksView().complianceRows().getRowCount()));
         put("crosslineRows", onEdt(() -> f.checksView().crosslineRows().getRowCount()));
 
-        // Undo through its action: statuses back, a second journal line
-        onEdt(() -> { f.undoAction().actionPerformed(new ActionEvent(f, ActionEvent.ACTION_PERFORMED, "undo")); return null; });
+        // Undo with Ctrl+Z and redo with Ctrl+Y through the window's key bindings, then undo with
+        // its action: each is a journal line
+        put("keyUndo", onEdt(() -> key(f, java.awt.event.KeyEvent.VK_Z, InputEvent.CTRL_DOWN_MASK)));
         put("accepted2", onEdt(() -> s.soundings().countAccepted()));
+        put("redoEnabled", onEdt(() -> f.redoAction().isEnabled()));
+        put("keyRedo", onEdt(() -> key(f, java.awt.event.KeyEvent.VK_Y, InputEvent.CTRL_DOWN_MASK)));
+        put("accepted3", onEdt(() -> s.soundings().countAccepted()));
+        onEdt(() -> { f.undoAction().actionPerformed(new ActionEvent(f, ActionEvent.ACTION_PERFORMED, "undo")); return null; });
+        put("accepted4", onEdt(() -> s.soundings().countAccepted()));
         journal = EditJournalFile.read(s.journalPath()).edits();
         put("journalEdits2", journal.size());
-        put("journalAction2", journal.size() < 2 ? "" : journal.get(1).action());
-        put("redoEnabled", onEdt(() -> f.redoAction().isEnabled()));
+        put("rejectKey", onEdt(() -> String.valueOf(f.rejectAction().getValue(javax.swing.Action.ACCELERATOR_KEY))));
+        put("restoreKey", onEdt(() -> String.valueOf(f.restoreAction().getValue(javax.swing.Action.ACCELERATOR_KEY))));
         onEdt(() -> { f.quit(); return null; });
+    }
+
+    /** Presses a key in the window as the keyboard would (key bindings of the focused window). */
+    private static boolean key(WorkbenchFrame f, int code, int modifiers) {
+        java.awt.event.KeyEvent e = new java.awt.event.KeyEvent(f.getRootPane(), java.awt.event.KeyEvent.KEY_PRESSED,
+                System.currentTimeMillis(), modifiers, code, java.awt.event.KeyEvent.CHAR_UNDEFINED);
+        return SwingUtilities.processKeyBindings(e);
     }
 
     private static int firstOfLine(WorkbenchSession s, String line) {

@@ -92,16 +92,18 @@ class WorkbenchGuiTest {
         assertThat(num(r, "accepted1")).isEqualTo(acc0 - 20);
         assertThat(r.getProperty("stale1")).isEqualTo("true");
 
-        // the journal on disk has the reject (a time window on L2 of 19 one-second pings) and then the undo
+        // the journal on disk has the reject (a time window on L2 of 19 one-second pings), then the
+        // undo (Ctrl+Z), redo (Ctrl+Y) and undo (action) made below
         Path journal = Path.of(r.getProperty("journalPath"));
         List<Edit> edits = EditJournalFile.read(journal).edits();
-        assertThat(edits).extracting(Edit::action).containsExactly(Edit.Action.REJECT, Edit.Action.UNDO);
+        assertThat(edits).extracting(Edit::action).containsExactly(Edit.Action.REJECT, Edit.Action.UNDO,
+                Edit.Action.REDO, Edit.Action.UNDO);
         assertThat(edits.get(0).selection()).isInstanceOf(Edit.Window.class);
         Edit.Window w = (Edit.Window) edits.get(0).selection();
         assertThat(w.line()).isEqualTo("L2");
         assertThat(w.toTime() - w.fromTime()).isEqualTo(19.0);
         assertThat(num(r, "journalEdits1")).isEqualTo(1);
-        assertThat(num(r, "journalEdits2")).isEqualTo(2);
+        assertThat(num(r, "journalEdits2")).isEqualTo(4);
 
         // Build surface: 20 fewer soundings gridded and a different mean depth of the cells
         assertThat(num(r, "gridded1")).isEqualTo(num(r, "gridded0") - 20);
@@ -114,9 +116,15 @@ class WorkbenchGuiTest {
         assertThat(num(r, "complianceRows")).isEqualTo(6);
         assertThat(num(r, "crosslineRows")).isEqualTo(6);
 
-        // Undo: back to the automatic statuses, and redo offered
+        // Ctrl+Z undoes, Ctrl+Y redoes, the Undo action undoes again; R and E are the reject/restore keys
+        assertThat(r.getProperty("keyUndo")).isEqualTo("true");
         assertThat(num(r, "accepted2")).isEqualTo(acc0);
         assertThat(r.getProperty("redoEnabled")).isEqualTo("true");
+        assertThat(r.getProperty("keyRedo")).isEqualTo("true");
+        assertThat(num(r, "accepted3")).isEqualTo(acc0 - 20);
+        assertThat(num(r, "accepted4")).isEqualTo(acc0);
+        assertThat(r.getProperty("rejectKey")).isEqualTo("pressed R");
+        assertThat(r.getProperty("restoreKey")).isEqualTo("pressed E");
 
         for (String name : List.of("0-cautions.png", "1-casts.png", "2-track.png", "3-along-track.png",
                 "4-depth-surface.png", "5-checks.png")) {
