@@ -169,6 +169,20 @@ public final class WorkbenchGuiScenario {
         put("readout", onEdt(() -> f.surfaceView().readoutText()));
         shoot(f, shots.resolve("4-depth-surface.png"));
 
+        // Export: a processing run that replays the journal, written to a folder
+        Path exportDir = work.resolve("export");
+        onEdt(() -> { f.export(exportDir); return null; });
+        waitFor(() -> !onEdt(f::busy) ? Boolean.TRUE : null, 120_000, "Export");
+        put("exportMessage", onEdt(f::statusMessage));
+        long reviewer = 0;
+        Path csv = exportDir.resolve("soundings.csv");
+        if (Files.exists(csv)) {
+            try (var lines = Files.lines(csv)) { reviewer = lines.filter(l -> l.endsWith(",reviewer")).count(); }
+        }
+        put("exportSoundingsCsv", Files.exists(csv));
+        put("exportReviewerRejected", reviewer);
+        put("exportSurface", Files.exists(exportDir.resolve("surface.tif")));
+
         onEdt(() -> { f.showView(WorkbenchFrame.CHECKS); return null; });
         settle();
         shoot(f, shots.resolve("5-checks.png"));

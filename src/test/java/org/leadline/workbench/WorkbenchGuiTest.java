@@ -112,6 +112,11 @@ class WorkbenchGuiTest {
         assertThat(r.getProperty("readout")).contains(String.format(java.util.Locale.ROOT, "depth %.2f m",
                 Double.parseDouble(r.getProperty("readoutCellDepth"))));
 
+        // Export replays the journal: the 20 pings are rejected by the reviewer in soundings.csv
+        assertThat(r.getProperty("exportSoundingsCsv")).as(r.getProperty("exportMessage")).isEqualTo("true");
+        assertThat(r.getProperty("exportSurface")).isEqualTo("true");
+        assertThat(num(r, "exportReviewerRejected")).isEqualTo(20);
+
         // Checks: 5 depth bands + all; crosslines compared
         assertThat(num(r, "complianceRows")).isEqualTo(6);
         assertThat(num(r, "crosslineRows")).isEqualTo(6);
