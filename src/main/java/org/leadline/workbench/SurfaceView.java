@@ -123,7 +123,7 @@ final class SurfaceView extends JPanel {
                 g.dispose();
                 return;
             }
-            int w = getWidth() - 2 * MARGIN - LEGEND, h = getHeight() - 2 * MARGIN;
+            int w = getWidth() - 2 * MARGIN - LEGEND, h = getHeight() - MARGIN - 64; // room below for the scale bar
             double we = grid.nx * grid.cell, hn = grid.ny * grid.cell;
             scale = Math.max(1e-9, Math.min(w / we, h / hn));
             int iw = (int) Math.round(we * scale), ih = (int) Math.round(hn * scale);
@@ -136,9 +136,11 @@ final class SurfaceView extends JPanel {
             g.setColor(Color.GRAY);
             g.drawRect(ox, oy, iw, ih);
             double[] r = SurfaceRendering.depthRange(grid);
-            MapFurniture.scaleBar(g, ox + 10, oy + ih - 10, scale, we);
-            MapFurniture.northArrow(g, ox + iw - 18, oy + 18);
-            MapFurniture.depthLegend(g, getWidth() - LEGEND + 14, MARGIN + 24, Math.min(220, Math.max(60, h - 60)), r[0], r[1]);
+            // scale bar below the map, north arrow under the legend: neither hides a cell
+            MapFurniture.scaleBar(g, ox, oy + ih + 30, scale, we);
+            int lh = Math.min(220, Math.max(60, h - 120));
+            MapFurniture.depthLegend(g, getWidth() - LEGEND + 14, MARGIN + 24, lh, r[0], r[1]);
+            MapFurniture.northArrow(g, getWidth() - LEGEND + 22, MARGIN + lh + 60);
             g.setColor(Color.DARK_GRAY);
             g.setFont(new Font(Font.SANS_SERIF, Font.PLAIN, 11));
             g.drawString("Depth below chart datum, " + session.result().projection().code() + ", cells of "

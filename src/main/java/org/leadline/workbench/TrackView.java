@@ -101,7 +101,7 @@ final class TrackView extends JComponent {
             g.dispose();
             return;
         }
-        int w = getWidth() - 2 * MARGIN - LEGEND, h = getHeight() - 2 * MARGIN;
+        int w = getWidth() - 2 * MARGIN - LEGEND, h = getHeight() - MARGIN - 80; // room below for the scale bar
         double spanE = Math.max(ext[2] - ext[0], 1), spanN = Math.max(ext[3] - ext[1], 1);
         scale = Math.max(1e-9, Math.min(w / spanE, h / spanN));
         e0 = ext[0] - (w / scale - spanE) / 2;
@@ -148,13 +148,15 @@ final class TrackView extends JComponent {
         }
         g.setColor(Color.GRAY);
         g.drawRect(ox - 10, oy - 10, w + 20, h + 20);
-        MapFurniture.scaleBar(g, ox + 10, oy + h - 6, scale, w / scale);
-        MapFurniture.northArrow(g, ox + w - 16, oy + 14);
-        MapFurniture.depthLegend(g, getWidth() - LEGEND + 14, MARGIN + 24, Math.min(220, h - 60), dr[0], dr[1]);
+        // scale bar below the map frame, north arrow under the legend: neither hides a sounding
+        MapFurniture.scaleBar(g, ox - 6, oy + h + 40, scale, w / scale);
+        int lh = Math.min(220, Math.max(60, h - 120));
+        MapFurniture.depthLegend(g, getWidth() - LEGEND + 14, MARGIN + 24, lh, dr[0], dr[1]);
+        MapFurniture.northArrow(g, getWidth() - LEGEND + 22, MARGIN + lh + 60);
         g.setFont(new Font(Font.SANS_SERIF, Font.PLAIN, 11));
         g.setColor(Color.DARK_GRAY);
         g.drawString("Soundings in " + crsLabel + "; rejected: crosses. Click a line to open it in Along-track.",
-                ox - 10, getHeight() - 12);
+                ox - 10, getHeight() - 8);
         g.dispose();
     }
 }

@@ -61,6 +61,19 @@ class AlongTrackModelTest {
     }
 
     @Test
+    void boxOnTheTimeAxisSelectsByPingTime() {
+        AlongTrackModel m = new AlongTrackModel(session, "L5");
+        double[] r = m.depthRange();
+        // one ping a second: 10.0 .. 20.0 s after the line's first ping holds pings 10..20 (worked by hand)
+        int[] sel = m.selectBox(AlongTrackModel.Axis.TIME, m.time(0) + 9.5, m.time(0) + 20.5, r[1] + 1, r[0] - 1);
+        assertThat(sel).hasSize(11);
+        assertThat(sel[0]).isEqualTo(10);
+        assertThat(m.time(1) - m.time(0)).isEqualTo(1.0);
+        m.clearSelection();
+        assertThat(m.journalSelection()).isNull();
+    }
+
+    @Test
     void boxOverPartOfTheDepthsBecomesIds() {
         AlongTrackModel m = new AlongTrackModel(session, "L3");
         // the fish school: pings 100..102 of L3 read 4 m shoaler (TestSurvey); a box above the seabed

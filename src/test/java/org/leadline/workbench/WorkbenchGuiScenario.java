@@ -239,7 +239,7 @@ public final class WorkbenchGuiScenario {
     private static void settle() throws Exception {
         for (int k = 0; k < 3; k++) {
             SwingUtilities.invokeAndWait(() -> {});
-            Thread.sleep(150);
+            Thread.sleep(60);
         }
     }
 
