@@ -46,7 +46,8 @@ final class TrackView extends JComponent {
             public void mouseMoved(MouseEvent e) {
                 if (model == null || scale == 0) return;
                 double[] en = toMap(e.getX(), e.getY());
-                String line = lineAt(e.getX(), e.getY());
+                // the hit test scans every sounding: on big surveys only a click runs it
+                String line = model.soundings().size <= 200_000 ? lineAt(e.getX(), e.getY()) : null;
                 onStatus.accept(String.format(Locale.ROOT, "E %.1f m  N %.1f m", en[0], en[1])
                         + (line != null ? "  line " + line + " (click to open in Along-track)" : ""));
                 setCursor(java.awt.Cursor.getPredefinedCursor(line != null ? java.awt.Cursor.HAND_CURSOR

@@ -22,6 +22,25 @@ import static org.assertj.core.api.Assertions.within;
 class WorkbenchSmallModelsTest {
 
     @Test
+    void cancelStopsOpeningAndReleasesTheJournal(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path project = TestSurvey.write(dir);
+        java.util.List<String> stages = new java.util.concurrent.CopyOnWriteArrayList<>();
+        Progress cancelAfterReading = new Progress() {
+            @Override public void stage(String name) { stages.add(name); }
+            @Override public boolean cancelled() { return stages.contains("Reading water levels"); }
+        };
+        org.assertj.core.api.Assertions.assertThatThrownBy(() -> WorkbenchSession.open(project, cancelAfterReading))
+                .isInstanceOf(Progress.Cancelled.class);
+        assertThat(stages).doesNotContain("Building surface");
+        // the lock on the journal was released: the project opens again
+        try (WorkbenchSession s = WorkbenchSession.open(project, null)) {
+            assertThat(s.journalPath()).isEqualTo(dir.resolve("project.journal"));
+            assertThat(s.edits()).isEmpty();
+            assertThat(s.canUndo()).isFalse();
+        }
+    }
+
+    @Test
     void trackFindsTheLineNearAClick() {
         SoundingTable s = new SoundingTable(4, List.of("A", "B"));
         double[][] en = {{0, 0}, {10, 0}, {0, 50}, {10, 50}};
