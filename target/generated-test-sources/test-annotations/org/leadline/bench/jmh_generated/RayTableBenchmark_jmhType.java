@@ -1,4 +1,0 @@
-package org.leadline.bench.jmh_generated;
-public class RayTableBenchmark_jmhType extends RayTableBenchmark_jmhType_B3 {
-}
-
