@@ -39,7 +39,7 @@ public final class HarbourApproach {
     public static final double LAT0 = 54.52, LON0 = 3.05;
     public static final Instant START = Instant.parse("2026-05-14T07:00:00Z");
     public static final double WIDTH = 300, LENGTH = 400;
-    static final double WRECK_E = 235, WRECK_N = 120, WRECK_LEN = 20, WRECK_WID = 6, WRECK_H = 4.2,
+    static final double WRECK_E = 225, WRECK_N = 120, WRECK_LEN = 20, WRECK_WID = 6, WRECK_H = 4.2,
             WRECK_BEARING = Math.toRadians(30), WRECK_EDGE = 0.6;
     static final double SHOAL_E = 60, SHOAL_N = 280, SHOAL_H = 5.5, SHOAL_SIGMA = 25;
 
@@ -48,7 +48,7 @@ public final class HarbourApproach {
                           double pingInterval, boolean singleBeamLines, boolean nmeaLine, long seed) {
         /** The bundled sample survey. */
         public static Options sample() {
-            return new Options(true, true, true, 12, 32, 0.8, true, true, 20260514L);
+            return new Options(true, true, true, 12, 32, 0.6, true, true, 20260514L);
         }
 
         /** Noise-free, spike-free, one cast: the recovery test of the reduction. */
@@ -140,7 +140,8 @@ public final class HarbourApproach {
     };
 
     /** Summary of what was written. */
-    public record Written(Path project, int soundings, int spikes, List<String> crosslines) {}
+    public record Written(Path project, int soundings, int spikes, List<String> crosslines, double[] trueLat,
+                          double[] trueLon, double[] trueDepth, double[] angle) {}
 
     /** Generates the survey into dir (created); returns the project file. */
     public static Written write(Path dir, Options o) throws IOException {
@@ -223,7 +224,22 @@ public final class HarbourApproach {
         if (!cross.isEmpty()) p.append("  crosslines: [").append(String.join(", ", cross)).append("]\n");
         Path project = dir.resolve("project.yaml");
         Files.writeString(project, p.toString(), StandardCharsets.UTF_8);
-        return new Written(project, counts[0], counts[1], cross);
+        List<SurveySimulator.Result> order = new ArrayList<>(swath);
+        order.addAll(single);
+        if (nmea != null) order.add(nmea);
+        int total = 0;
+        for (var r : order) total += r.time.size();
+        double[] la = new double[total], lo = new double[total], de = new double[total], an = new double[total];
+        int at = 0;
+        for (var r : order) {
+            for (int i = 0; i < r.time.size(); i++, at++) {
+                la[at] = r.trueLat.get(i);
+                lo[at] = r.trueLon.get(i);
+                de[at] = r.trueDepth.get(i);
+                an[at] = r.angle.get(i);
+            }
+        }
+        return new Written(project, counts[0], counts[1], cross, la, lo, de, an);
     }
 
     private static SurveySimulator simulator(Options o, double t, Vessel v, SurveySimulator.WaterLevel tide) {
