@@ -142,7 +142,11 @@ public final class ProcessingRun {
         Coverage coverage = Coverage.of(grid);
         double[] levels = contourLevels(grid);
         List<Contours.Polyline> contours = new ArrayList<>();
-        for (List<Contours.Polyline> l : Contours.trace(grid, levels)) contours.addAll(l);
+        // closed rings around fewer than 4 cells are noise on a flat floor at a contour level, not
+        // features a chart would show (common practice: contours are generalised); they are dropped
+        for (List<Contours.Polyline> l : Contours.trace(grid, levels)) {
+            for (Contours.Polyline pl : l) if (!pl.closed() || Math.abs(ringArea(pl)) >= 4 * cell * cell) contours.add(pl);
+        }
         int[] selected = SoundingSelection.select(s.easting, s.northing, s.depth, acc, Math.max(5 * cell, 10));
 
         progress.stage("Comparing crosslines");
@@ -262,6 +266,14 @@ public final class ProcessingRun {
             int c = mainGrid.col(x), r = mainGrid.row(y);
             return c < 0 || r < 0 ? Double.NaN : depth[r * mainGrid.nx + c];
         }, order::tvuLimit);
+    }
+
+    /** Shoelace area of a closed polyline, m^2 (signed). */
+    static double ringArea(Contours.Polyline p) {
+        double a = 0;
+        double[] x = p.x(), y = p.y();
+        for (int i = 0, j = x.length - 1; i < x.length; j = i++) a += (x[j] + x[i]) * (y[j] - y[i]);
+        return a / 2;
     }
 
     private static double[] contourLevels(Grid g) {
