@@ -326,6 +326,17 @@ public final class ProcessingRun {
         m.put("latency_s", r.inputs().vessel.latency());
         m.put("cleaning", s.cleaning());
         m.put("crosslines", r.crosslineLines());
+        // which cast each ping used (the earlier of the two when interpolating in time)
+        List<Map<String, Object>> casts = new ArrayList<>();
+        int[] used = new int[Math.max(1, r.inputs().casts.size())];
+        for (int c : r.soundings().cast) if (c >= 0 && c < used.length) used[c]++;
+        for (int k = 0; k < r.inputs().casts.size(); k++) {
+            Map<String, Object> c = new LinkedHashMap<>();
+            c.put("cast", project.casts().get(k).getFileName().toString());
+            c.put("pings", used[k]);
+            casts.add(c);
+        }
+        m.put("casts_used", casts);
         return m;
     }
 
