@@ -203,6 +203,7 @@ public final class Cleaner {
                 if (dev > Math.max(thr, k * MAD_TO_SIGMA * mad)) spike[i] = true;
             }
         }
+        restoreSupported(s, spike, floor, kTvu);
         for (int i = 0; i < n; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
         return untested;
     }
@@ -343,8 +344,73 @@ public final class Cleaner {
                 if (Math.abs(s.depth[i] - surf) > kS * s.tvu[i]) rejectIt[i] = true;
             }
         }
+        restoreSupported(s, rejectIt, cfg.spikeFloor(), cfg.spikeKTvu());
         for (int i = 0; i < n; i++) if (rejectIt[i]) reject(s, i, Reason.SURFACE, counts);
         return untested;
+    }
+
+    /** Radius within which a flagged sounding looks for soundings of other pings that agree with it, m. */
+    static final double SUPPORT_RADIUS = 6.0;
+    /** Agreeing soundings of another pass that make a flagged sounding real seabed. */
+    static final int SUPPORT_MIN = 3;
+    /** Least time between two looks for them to count as separate passes, s. */
+    static final double SUPPORT_SEPARATION = 30.0;
+
+    /**
+     * Feature protection: a flagged sounding is kept when at least {@link #SUPPORT_MIN} soundings
+     * of another pass (at least {@link #SUPPORT_SEPARATION} s apart, i.e. another line or a
+     * revisit), within {@link #SUPPORT_RADIUS} horizontally, agree with its depth to within
+     * {@code max(floor, kTvu * TVU)}. Spikes are transient: second echoes and dropouts are single
+     * returns and a fish school has moved on by the next pass, whereas a wreck, a rock or a
+     * channel edge is there on every pass. A median-based filter alone would clip such a feature,
+     * and a clipped least depth is the most dangerous error a surface can carry (IHO S-44 ed.
+     * 6.0.0 on feature detection; common practice: confirm a feature on a second pass). Flags are
+     * cleared in place; the witnesses are every sounding still accepted, flagged or not.
+     */
+    static void restoreSupported(SoundingTable s, boolean[] flagged, double floor, double kTvu) {
+        int n = s.size;
+        int nf = 0;
+        for (int i = 0; i < n; i++) if (flagged[i]) nf++;
+        if (nf == 0) return;
+        double r = SUPPORT_RADIUS;
+        int m = 0;
+        int[] pool = new int[n];
+        for (int i = 0; i < n; i++) {
+            if (s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i])
+                    && Double.isFinite(s.northing[i])) pool[m++] = i;
+        }
+        LongIntMap ids = new LongIntMap(Math.max(16, m / 8));
+        int[] cid = new int[m];
+        for (int q = 0; q < m; q++) {
+            int i = pool[q];
+            cid[q] = ids.putIfAbsent(cellKey(cellIndex(s.easting[i], r), cellIndex(s.northing[i], r)), ids.size());
+        }
+        int cells = ids.size();
+        int[] start = new int[cells + 1];
+        int[] order = countingSort(pool, cid, m, cells, start);
+        boolean[] keep = new boolean[n];
+        for (int i = 0; i < n; i++) {
+            if (!flagged[i] || !Double.isFinite(s.easting[i]) || !Double.isFinite(s.northing[i])) continue;
+            double tol = Double.isFinite(s.tvu[i]) ? Math.max(floor, kTvu * s.tvu[i]) : floor;
+            int cx = cellIndex(s.easting[i], r), cy = cellIndex(s.northing[i], r);
+            int support = 0;
+            search:
+            for (int dx = -1; dx <= 1; dx++) {
+                for (int dy = -1; dy <= 1; dy++) {
+                    int c = ids.get(cellKey(cx + dx, cy + dy));
+                    if (c < 0) continue;
+                    for (int q = start[c]; q < start[c + 1]; q++) {
+                        int j = order[q];
+                        if (Math.abs(s.time[j] - s.time[i]) < SUPPORT_SEPARATION) continue;
+                        double de = s.easting[j] - s.easting[i], dn = s.northing[j] - s.northing[i];
+                        if (de * de + dn * dn > r * r || Math.abs(s.depth[j] - s.depth[i]) > tol) continue;
+                        if (++support >= SUPPORT_MIN) break search;
+                    }
+                }
+            }
+            keep[i] = support >= SUPPORT_MIN;
+        }
+        for (int i = 0; i < n; i++) if (keep[i]) flagged[i] = false;
     }
 
     static int cellIndex(double v, double cell) { return (int) Math.floor(v / cell); }

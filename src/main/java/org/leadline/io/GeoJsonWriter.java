@@ -140,23 +140,12 @@ public final class GeoJsonWriter {
         void write(OutputStream out) throws IOException;
     }
 
-    /** Writes to a temporary file next to the target, then moves it into place. */
+    /** Writes to a temporary file next to the target, then moves it into place ({@link AtomicFiles}). */
     static void atomicWrite(Path file, Body body) throws IOException {
-        Path abs = file.toAbsolutePath();
-        Path dir = abs.getParent();
-        Files.createDirectories(dir);
-        Path tmp = Files.createTempFile(dir, "." + abs.getFileName(), ".part");
-        try {
+        AtomicFiles.write(file.toAbsolutePath(), tmp -> {
             try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16)) {
                 body.write(out);
             }
-            try {
-                Files.move(tmp, abs, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
-            } catch (AtomicMoveNotSupportedException ex) {
-                Files.move(tmp, abs, StandardCopyOption.REPLACE_EXISTING);
-            }
-        } finally {
-            Files.deleteIfExists(tmp);
-        }
+        });
     }
 }

@@ -142,7 +142,11 @@ public final class ProcessingRun {
         Coverage coverage = Coverage.of(grid);
         double[] levels = contourLevels(grid);
         List<Contours.Polyline> contours = new ArrayList<>();
-        for (List<Contours.Polyline> l : Contours.trace(grid, levels)) contours.addAll(l);
+        // closed rings around fewer than 4 cells are noise on a flat floor at a contour level, not
+        // features a chart would show (common practice: contours are generalised); they are dropped
+        for (List<Contours.Polyline> l : Contours.trace(grid, levels)) {
+            for (Contours.Polyline pl : l) if (!pl.closed() || Math.abs(ringArea(pl)) >= 4 * cell * cell) contours.add(pl);
+        }
         int[] selected = SoundingSelection.select(s.easting, s.northing, s.depth, acc, Math.max(5 * cell, 10));
 
         progress.stage("Comparing crosslines");
@@ -264,6 +268,14 @@ public final class ProcessingRun {
         }, order::tvuLimit);
     }
 
+    /** Shoelace area of a closed polyline, m^2 (signed). */
+    static double ringArea(Contours.Polyline p) {
+        double a = 0;
+        double[] x = p.x(), y = p.y();
+        for (int i = 0, j = x.length - 1; i < x.length; j = i++) a += (x[j] + x[i]) * (y[j] - y[i]);
+        return a / 2;
+    }
+
     private static double[] contourLevels(Grid g) {
         float[] d = g.layer(Grid.DEPTH);
         double min = Double.POSITIVE_INFINITY, max = Double.NEGATIVE_INFINITY;
@@ -314,6 +326,17 @@ public final class ProcessingRun {
         m.put("latency_s", r.inputs().vessel.latency());
         m.put("cleaning", s.cleaning());
         m.put("crosslines", r.crosslineLines());
+        // which cast each ping used (the earlier of the two when interpolating in time)
+        List<Map<String, Object>> casts = new ArrayList<>();
+        int[] used = new int[Math.max(1, r.inputs().casts.size())];
+        for (int c : r.soundings().cast) if (c >= 0 && c < used.length) used[c]++;
+        for (int k = 0; k < r.inputs().casts.size(); k++) {
+            Map<String, Object> c = new LinkedHashMap<>();
+            c.put("cast", project.casts().get(k).getFileName().toString());
+            c.put("pings", used[k]);
+            casts.add(c);
+        }
+        m.put("casts_used", casts);
         return m;
     }
 

@@ -153,14 +153,21 @@ public final class SurveyInputs {
         return new SurveyInputs(vessel, pings, cols, reason, casts, profiles, zoning, warnings);
     }
 
-    /** Rough deepest sounding below the surface (m), to extend profiles: set speed x max twtt / 2. */
+    /**
+     * Rough deepest seabed below the surface (m), to extend profiles: 1600 m/s x the 99.9th
+     * percentile of one-way times (second echoes and other spikes beyond it are not seabed).
+     */
     private static double estimateDeepest(PingTable p, Vessel v) {
-        double max = 0;
-        for (int i = 0; i < p.size; i++) {
-            double d = Double.isFinite(p.twtt[i]) ? 1600 * p.twtt[i] / 2 : p.depth[i] * 1600 / v.sounderSetSpeed();
-            if (d > max) max = d;
+        int step = Math.max(1, p.size / 200_000); // a sample is enough for a percentile
+        double[] d = new double[(p.size + step - 1) / step];
+        int k = 0;
+        for (int i = 0; i < p.size; i += step) {
+            double x = Double.isFinite(p.twtt[i]) ? 1600 * p.twtt[i] / 2 : p.depth[i] * 1600 / v.sounderSetSpeed();
+            d[k++] = Double.isFinite(x) ? x : 0;
         }
-        return Math.ceil(max + v.transducerDraft() + 2);
+        Arrays.sort(d, 0, k);
+        double deep = k == 0 ? 0 : d[Math.min(k - 1, (int) (0.999 * k))];
+        return Math.ceil(deep + v.transducerDraft() + 2);
     }
 
     static double median(double[] a) {

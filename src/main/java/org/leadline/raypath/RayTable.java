@@ -268,8 +268,9 @@ public final class RayTable {
         double fz = uz - iz;
         double ca = bandSpeed[iz];
         double cz = ca == ca ? ca + fz * (bandSpeed[iz + 1] - ca) : profile.speedAt(startDepth);
-        double s = Math.sin(a) * cRef / cz;
-        double u = s / Math.sqrt((1 - s) * (1 + s)) * invHw;
+        // u = tan(th_r) / hw with sin(th_r) = sin(a) cRef / c(zs), in one division and one square root
+        double sc = Math.sin(a) * cRef;
+        double u = sc * invHw / Math.sqrt((cz - sc) * (cz + sc));
         int j = (int) u;                       // stencil: stored rays j .. j+3 (w nodes j-1 .. j+2)
         double f = u - j;
         double fm1 = f - 1, fm2 = f - 2, fp1 = f + 1;

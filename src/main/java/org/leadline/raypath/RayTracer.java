@@ -28,9 +28,10 @@ import org.leadline.watercolumn.SoundSpeedProfile;
  * on in a straight line at the first sample's speed, even above the sea surface. The vertical beam
  * is handled exactly by {@link SoundSpeedProfile#depthAfter(double, double)}.
  *
- * <p>Accuracy: to rounding (better than 1e-9 m for paths of a few hundred metres), checked against
- * an independent Dormand-Prince integration of the ray equations in {@code RayTracerTest}. Cost:
- * proportional to the number of layers crossed. Immutable and thread-safe.
+ * <p>Accuracy: closed forms, exact to rounding; an independent Dormand-Prince integration of the ray
+ * equations agrees to 0.33 um in depth and 1.4 nm horizontally over 250 ms through a strongly
+ * refracting profile ({@code RayTracerTest}). Cost: one step per layer crossed (about 90 ns through
+ * 4 samples, 4 us through 241). Immutable and thread-safe.
  *
  * <pre>{@code
  * RayTracer tracer = new RayTracer(profile);

@@ -74,7 +74,7 @@ public final class ReportWriter {
             for (int k = 0; k < r.inputs().profiles.size(); k++) {
                 DerivedProfile d = r.inputs().profiles.get(k);
                 String name = r.inputs().casts.get(k).name();
-                XYSeries ser = new XYSeries(name == null || name.isEmpty() ? "cast " + (k + 1) : name);
+                XYSeries ser = new XYSeries(name == null || name.isEmpty() ? "cast " + (k + 1) : name, false, true); // keep depth order
                 double cmin = Double.MAX_VALUE, cmax = -Double.MAX_VALUE;
                 for (int i = 0; i < d.depth().length; i++) {
                     ser.add(d.soundSpeed()[i], d.depth()[i]);
@@ -90,7 +90,12 @@ public final class ReportWriter {
             h.append("</table>");
             JFreeChart ch = ChartFactory.createXYLineChart("Sound-speed profiles", "sound speed (m/s)", "depth (m)", ds,
                     PlotOrientation.VERTICAL, true, false, false);
-            ((XYPlot) ch.getPlot()).getRangeAxis().setInverted(true);
+            XYPlot plot = (XYPlot) ch.getPlot();
+            plot.getRangeAxis().setInverted(true);
+            plot.setBackgroundPaint(java.awt.Color.WHITE);
+            plot.setDomainGridlinePaint(java.awt.Color.LIGHT_GRAY);
+            plot.setRangeGridlinePaint(java.awt.Color.LIGHT_GRAY);
+            ((org.jfree.chart.axis.NumberAxis) plot.getDomainAxis()).setNumberFormatOverride(new java.text.DecimalFormat("0.0"));
             image(h, out, "report-profiles.png", ch.createBufferedImage(640, 420), "Sound-speed profiles");
         }
 
@@ -121,6 +126,8 @@ public final class ReportWriter {
         h.append("</table>");
         JFreeChart tch = ChartFactory.createBarChart("TVU components (RMS, one sigma)", "", "m", tds,
                 PlotOrientation.HORIZONTAL, false, false, false);
+        tch.getCategoryPlot().setBackgroundPaint(java.awt.Color.WHITE);
+        tch.getCategoryPlot().setRangeGridlinePaint(java.awt.Color.LIGHT_GRAY);
         image(h, out, "report-tpu.png", tch.createBufferedImage(640, 420), "TVU components");
 
         ComplianceSummary c = r.compliance();

@@ -107,7 +107,7 @@ class ProjectReaderTest {
         assertThat(q.settings().draft()).isNaN();
         assertThat(q.vessel()).isEqualTo(p.vessel());
         assertThat(p.settings().cell()).isEqualTo(2.5); // the original is unchanged
-        assertThatThrownBy(() -> p.toBuilder().surface("cube").build()).isInstanceOf(IllegalArgumentException.class)
+        assertThatThrownBy(() -> p.toBuilder().surface("kriging").build()).isInstanceOf(IllegalArgumentException.class)
                 .hasMessageContaining("surface");
         assertThatThrownBy(() -> p.toBuilder().cell(0).build()).isInstanceOf(IllegalArgumentException.class);
         assertThatThrownBy(() -> p.toBuilder().crs("EPSG:").build()).isInstanceOf(IllegalArgumentException.class);

@@ -105,6 +105,18 @@ class RayTableTest {
     }
 
     @Test
+    void bandMayStartAboveTheFirstSample() {
+        // casts often begin a metre or two down; the band above is water at the first sample's speed
+        SoundSpeedProfile p = new SoundSpeedProfile(new double[]{1.5, 6, 20, 50},
+                new double[]{1510, 1506, 1490, 1488}, List.of());
+        RayTable table = RayTable.forDepth(p, 0, 10, Math.toRadians(75), 100);
+        Errors e = measure(table, new RayTracer(p), 50_000, 13);
+        assertThat(e.depth()).isLessThan(1e-3);
+        assertThat(e.horizontal()).isLessThan(1e-2);
+        assertThat(e.tableFraction()).isGreaterThan(0.95);
+    }
+
+    @Test
     void outsideItsDomainTheTableTracesExactly() {
         SoundSpeedProfile p = RayTracerTest.strong();
         RayTable table = new RayTable(p, 0, 10, Math.toRadians(75), 0.2);

@@ -164,22 +164,39 @@ public final class SurveySimulator {
 
     /**
      * One-way time at which the ray meets the seabed: solves depth-below-surface(ray) = seabed
-     * depth + water level at the footprint, by the secant method to 0.1 micrometre.
+     * depth + water level at the footprint. The misfit is negative at t = 0 and grows with time;
+     * a bracket is found by doubling, then refined by the Illinois variant of false position
+     * (robust on steep-sided features such as the wreck) to 0.01 micrometre.
      */
     private double solveTime(double T, double[] ant, Vector3D arm, double zt, double theta, double az, double[] out) {
-        double c0 = 1480;
-        double guess = (seabed.depth(localEN(ant[0], ant[1])[0], localEN(ant[0], ant[1])[1]) - zt) / (c0 * Math.cos(theta));
-        double t0 = Math.max(1e-4, guess), t1 = t0 * 1.01;
-        double f0 = misfit(T, ant, arm, zt, theta, az, t0, out), f1 = misfit(T, ant, arm, zt, theta, az, t1, out);
-        for (int k = 0; k < 60 && Math.abs(f1) > 1e-7; k++) {
-            double t2 = t1 - f1 * (t1 - t0) / (f1 - f0);
-            if (!(t2 > 0)) t2 = t1 / 2;
-            t0 = t1; f0 = f1;
-            t1 = t2; f1 = misfit(T, ant, arm, zt, theta, az, t1, out);
+        double lo = 0, flo = misfit(T, ant, arm, zt, theta, az, 0, out);
+        if (!(flo < 0)) throw new IllegalStateException("transducer at or below the seabed: misfit " + flo + " m");
+        double hi = 0.005, fhi = misfit(T, ant, arm, zt, theta, az, hi, out);
+        while (fhi < 0) {
+            lo = hi; flo = fhi;
+            hi *= 2;
+            if (hi > 10) throw new IllegalStateException("ray never meets the seabed");
+            fhi = misfit(T, ant, arm, zt, theta, az, hi, out);
         }
-        if (Math.abs(f1) > 1e-6) throw new IllegalStateException("forward model did not converge: misfit " + f1 + " m");
-        misfit(T, ant, arm, zt, theta, az, t1, out);
-        return t1;
+        int side = 0;
+        double t = hi;
+        for (int k = 0; k < 200; k++) {
+            t = (lo * fhi - hi * flo) / (fhi - flo);
+            double ft = misfit(T, ant, arm, zt, theta, az, t, out);
+            if (Math.abs(ft) < 1e-8 || hi - lo < 1e-13) break;
+            if (ft > 0) {
+                hi = t; fhi = ft;
+                if (side == 1) flo /= 2;
+                side = 1;
+            } else {
+                lo = t; flo = ft;
+                if (side == -1) fhi /= 2;
+                side = -1;
+            }
+        }
+        double f = misfit(T, ant, arm, zt, theta, az, t, out);
+        if (Math.abs(f) > 1e-6) throw new IllegalStateException("forward model did not converge: misfit " + f + " m");
+        return t;
     }
 
     private double misfit(double T, double[] ant, Vector3D arm, double zt, double theta, double az, double t, double[] out) {
@@ -190,7 +207,7 @@ public final class SurveySimulator {
         return zt + out[0] - (seabed.depth(en[0], en[1]) + water.level(T, en[0], en[1]));
     }
 
-    /** Antenna lat/lon at time t along a line (the reference point runs the line; antenna follows). */
+    /** Antenna lat/lon at time t along a line (the antenna runs the planned line). */
     private double[] antenna(LinePlan lp, double course, double t) {
         double e = lp.e0() + Math.sin(course) * lp.speed() * t;
         double n = lp.n0() + Math.cos(course) * lp.speed() * t;
