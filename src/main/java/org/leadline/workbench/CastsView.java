@@ -112,9 +112,21 @@ final class CastsView extends JPanel {
         for (CastsModel.Quantity q : CastsModel.Quantity.values()) charts.add(chart(k, q));
         StringBuilder sb = new StringBuilder();
         List<String> rej = model.rejectionReasons(k);
-        sb.append(rej.size()).append(" sample(s) rejected by the cast QC").append(rej.isEmpty() ? "." : ":").append('\n');
-        for (String r : rej) sb.append("  ").append(r).append('\n');
+        java.util.Map<String, Integer> byKind = new java.util.LinkedHashMap<>();
+        for (var r : model.profile(k).rejections()) {
+            String kind = r.reason().contains(":") ? r.reason().substring(0, r.reason().indexOf(':')) : r.reason();
+            byKind.merge(kind, 1, Integer::sum);
+        }
+        sb.append(rej.size()).append(" sample(s) rejected by the cast QC (crosses)");
+        if (!byKind.isEmpty()) {
+            sb.append(": ");
+            java.util.StringJoiner j = new java.util.StringJoiner(", ");
+            byKind.forEach((kind, count) -> j.add(count + " " + kind));
+            sb.append(j);
+        }
+        sb.append('\n');
         for (String w : model.profile(k).warnings()) sb.append("warning: ").append(w).append('\n');
+        for (String r : rej) sb.append("  ").append(r).append('\n');
         notes.setText(sb.toString());
         notes.setCaretPosition(0);
         charts.revalidate();
@@ -129,10 +141,11 @@ final class CastsView extends JPanel {
             none.setBorder(BorderFactory.createLineBorder(java.awt.Color.LIGHT_GRAY));
             return none;
         }
-        XYSeriesCollection data = new XYSeriesCollection();
-        data.addSeries(series("Profile", model.profilePoints(k, q)));
-        data.addSeries(series("Samples", model.rawPoints(k, q)));
-        data.addSeries(series("Rejected by QC", model.rejectedPoints(k, q)));
+        // dataset 0, drawn last (on top): the derived profile; dataset 1: samples, then rejected ones
+        XYSeriesCollection profile = new XYSeriesCollection(series("Profile", model.profilePoints(k, q)));
+        XYSeriesCollection samples = new XYSeriesCollection();
+        samples.addSeries(series("Samples", model.rawPoints(k, q)));
+        samples.addSeries(series("Rejected by QC", model.rejectedPoints(k, q)));
         NumberAxis x = new NumberAxis(q.label);
         x.setAutoRangeIncludesZero(false);
         // a constant profile (a velocimeter cast in mixed water) still gets a readable axis
@@ -141,20 +154,20 @@ final class CastsView extends JPanel {
         NumberAxis depth = new NumberAxis("Depth (m)");
         depth.setInverted(true); // depth increases downwards
         depth.setAutoRangeIncludesZero(true);
-        XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
-        r.setSeriesLinesVisible(0, true);
-        r.setSeriesShapesVisible(0, false);
-        r.setSeriesPaint(0, Charts.ACCEPTED);
-        r.setSeriesStroke(0, new BasicStroke(2f));
-        r.setSeriesLinesVisible(1, false);
-        r.setSeriesShapesVisible(1, true);
-        r.setSeriesShape(1, Charts.dot(4));
-        r.setSeriesPaint(1, Charts.RAW);
-        r.setSeriesLinesVisible(2, false);
-        r.setSeriesShapesVisible(2, true);
-        r.setSeriesShape(2, Charts.cross(10));
-        r.setSeriesPaint(2, Charts.REJECTED);
-        XYPlot plot = new XYPlot(data, x, depth, r);
+        XYLineAndShapeRenderer line = new XYLineAndShapeRenderer(true, false);
+        line.setSeriesPaint(0, Charts.ACCEPTED);
+        line.setSeriesStroke(0, new BasicStroke(2.5f));
+        XYLineAndShapeRenderer dots = new XYLineAndShapeRenderer(false, true);
+        dots.setSeriesShape(0, Charts.dot(4));
+        dots.setSeriesPaint(0, Charts.RAW);
+        dots.setSeriesShape(1, Charts.cross(7));
+        dots.setSeriesPaint(1, Charts.REJECTED);
+        XYPlot plot = new XYPlot(profile, x, depth, line);
+        plot.setDataset(1, samples);
+        plot.setRenderer(1, dots);
+        plot.setDatasetRenderingOrder(org.jfree.chart.plot.DatasetRenderingOrder.REVERSE);
+        // rejected samples underneath the accepted ones
+        plot.setSeriesRenderingOrder(org.jfree.chart.plot.SeriesRenderingOrder.REVERSE);
         JFreeChart chart = new JFreeChart(q.label, JFreeChart.DEFAULT_TITLE_FONT, plot, q == CastsModel.Quantity.SOUND_SPEED);
         Charts.style(chart);
         ChartPanel p = new ChartPanel(chart, false, false, false, true, false);
