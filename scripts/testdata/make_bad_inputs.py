@@ -23,6 +23,11 @@ def wb(name, data):
     with open(os.path.join(OUT, name), "wb") as f:
         f.write(data)
 
+def junk(seed, n=4096):
+    """n bytes of binary garbage, the same on every run."""
+    rnd = random.Random(seed)
+    return bytes(rnd.randrange(256) for _ in range(n))
+
 def t(sec):
     m, s = divmod(sec, 60)
     return "2026-05-14T09:%02d:%02d.000Z" % (m, s)
@@ -86,15 +91,20 @@ heave = HEADER.replace("line", "heave,line")
 w("pings-heave-10m.csv", heave + "".join(",".join((r[0], r[1], r[2], r[3], "10.2" if i in (50, 51) else "0.1", r[4])) + "\n"
                                          for i, r in enumerate(rows)))
 wb("pings-gzip.csv", gzip.compress(pings(rows).encode(), mtime=0))
-rnd = random.Random(8)
-wb("pings-binary.csv", bytes(rnd.randrange(256) for _ in range(4096)))
+wb("pings-binary.csv", junk(8))
 w("pings-unclosed-quote.csv", pings(rows[:10]) + '2026-05-14T09:00:10.000Z,"53.5501,9.9000,0.016,L1\n' + pings(rows[11:20], header=""))
+
+lat1 = pings(rows[:12]).encode("utf-8").replace(b",L1\n", b",L\xfcne\n")  # Latin-1 u-umlaut from line 2 on
+wb("pings-latin1.csv", lat1)
+w("pings-depth-too-deep.csv", "time,lat,lon,depth,line\n"
+  + "".join(",".join((r[0], r[1], r[2], "%.2f" % (39000.0 if i == 3 else float(r[3]) * 1495 / 2), r[4])) + "\n"
+            for i, r in enumerate(rows)))
 
 # ---- casts -------------------------------------------------------------------------------------
 head = "# time: 2026-05-14T08:55:00Z\n# lat: 53.5503\n# lon: 9.9002\n"
 w("cast-empty.csv", "")
 w("cast-conductivity-as-salinity.csv", head + "depth,temperature,salinity\n"
-  + "".join("%.1f,%.3f,%.3f\n" % (z, 12.0 - 0.05 * z, 38.9 + 0.05 * z) for z in range(0, 26)))
+  + "".join("%.1f,%.3f,%.3f\n" % (z, 12.0 - 0.05 * z, 45.0 + 0.2 * z) for z in range(0, 26)))
 w("cast-shallow.csv", head + "depth,temperature,salinity\n"
   + "".join("%.1f,%.3f,%.3f\n" % (z, 12.0 - 0.05 * z, 33.0 + 0.04 * z) for z in range(0, 6)))
 w("cast-warm.csv", head + "depth,temperature,salinity\n"
@@ -107,7 +117,7 @@ w("cast-depth-ft.csv", head + "depth_ft,temperature,salinity\n"
   + "".join("%.1f,%.3f,%.3f\n" % (z / 0.3048, 12.0 - 0.05 * z, 33.0) for z in range(0, 26)))
 w("cast-latitude-91.csv", head.replace("53.5503", "91.5") + "depth,temperature,salinity\n0,12,33\n10,11,33\n")
 w("cast-truncated.csv", head + "depth,temperature,salinity\n0.0,12.000,33.000\n1.0,11.9")
-wb("cast-binary.csv", bytes(random.Random(9).randrange(256) for _ in range(4096)))
+wb("cast-binary.csv", junk(9))
 
 # ---- water levels ------------------------------------------------------------------------------
 tl = tide.splitlines()
@@ -136,8 +146,9 @@ def nmea_log(bad=()):
         out[i] = out[i][:-2] + ("00" if out[i][-2:] != "00" else "01")
     return "\n".join(out) + "\n"
 w("nmea-bad-checksums.nmea", nmea_log(bad=(5, 6, 41)))
-wb("nmea-binary.nmea", bytes(random.Random(10).randrange(256) for _ in range(4096)))
+wb("nmea-binary.nmea", junk(10))
 w("nmea-empty.nmea", "")
+w("nmea-bom-crlf.nmea", nmea_log(), newline="\r\n", bom=True)
 
 # ---- vessel ------------------------------------------------------------------------------------
 w("vessel-empty.yaml", "")
@@ -145,7 +156,7 @@ w("vessel-tab-indent.yaml", "draft_m: 0.5\nsounder:\n\tset_speed_m_s: 1495\n")
 w("vessel-draft-ft.yaml", "draft_ft: 1.6\n")
 w("vessel-truncated.yaml", "draft_m: 0.5\nsounder:\n  set_speed_m_s: [1495\n")
 w("vessel-nan.yaml", "draft_m: .nan\n")
-wb("vessel-binary.yaml", bytes(random.Random(11).randrange(256) for _ in range(4096)))
+wb("vessel-binary.yaml", junk(11))
 
 # ---- projects (path safety) --------------------------------------------------------------------
 w("project-dotdot.yaml", "inputs:\n  soundings: [good/pings.csv, ../bad-inputs/good/pings.csv]\n")
@@ -171,7 +182,7 @@ w("journal-no-header.journal", "\n".join([j1, j2]) + "\n")
 w("barcheck-semicolons.csv", "bar_depth;reading\n2;2.05\n4;4.08\n6;6.12\n")
 w("barcheck-nan.csv", "bar_depth,reading\n2,2.05\n4,NaN\n6,6.12\n")
 w("barcheck-empty.csv", "")
-wb("barcheck-binary.csv", bytes(random.Random(12).randrange(256) for _ in range(4096)))
+wb("barcheck-binary.csv", junk(12))
 w("barcheck-bom-crlf.csv", "# set_speed: 1500\nbar_depth,reading\n2,2.05\n4,4.08\n6,6.12\n", newline="\r\n", bom=True)
 
 # ---- navigation / attitude ---------------------------------------------------------------------
