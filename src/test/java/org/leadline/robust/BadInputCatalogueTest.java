@@ -102,6 +102,20 @@ class BadInputCatalogueTest {
         }
     }
 
+    @org.junit.jupiter.api.Test
+    void debugAddsTheStackTraceAfterTheSameFirstLine() {
+        Path bad = catalogueDir().resolve("pings-nan.csv");
+        StringWriter so = new StringWriter(), se = new StringWriter();
+        int code = Main.run(new String[] {"process", "--debug", "--quiet", "--soundings", bad.toString(), "--out",
+                tmp.resolve("out").toString()}, new PrintWriter(so, true), new PrintWriter(se, true));
+        assertThat(code).isEqualTo(Main.BAD_INPUT);
+        List<String> lines = se.toString().lines().toList();
+        assertThat(lines.get(0)).isEqualTo("leadline: " + bad + ":11:4: expected a finite number for 'twtt', found 'NaN'");
+        assertThat(lines.subList(1, lines.size())).anyMatch(l -> l.startsWith("org.leadline.io.InputException"))
+                .anyMatch(l -> l.contains("at org.leadline.io.PingCsvReader"));
+        assertThat(tmp.resolve("out")).doesNotExist();
+    }
+
     /** The command line of a case: the good survey with one input replaced (or added). */
     static String[] arguments(Case c, Path dir, Path input, Path out) {
         String f = input.toString();
