@@ -178,6 +178,10 @@ w("journal-bad-crc.journal", "\n".join([HEAD, j1, j2[:-8] + "deadbeef", j3]) + "
 w("journal-torn-last-line.journal", "\n".join([HEAD, j1, j2, j3[:20]]))
 w("journal-no-header.journal", "\n".join([j1, j2]) + "\n")
 
+# ---- tide zones ------------------------------------------------------------------------------
+w("tidezones-truncated.geojson", '{"type": "FeatureCollection", "features": [{"type": "Feature", "properties": {"name": "A"')
+wb("tidezones-binary.geojson", junk(14))
+
 # ---- bar check ---------------------------------------------------------------------------------
 w("barcheck-semicolons.csv", "bar_depth;reading\n2;2.05\n4;4.08\n6;6.12\n")
 w("barcheck-nan.csv", "bar_depth,reading\n2,2.05\n4,NaN\n6,6.12\n")

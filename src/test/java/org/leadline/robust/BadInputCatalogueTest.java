@@ -134,6 +134,7 @@ class BadInputCatalogueTest {
         switch (c.role()) {
             case "soundings" -> a.addAll(List.of("--soundings", f));
             case "nmea" -> a.addAll(List.of("--nmea", f));
+            case "tide-zones" -> a.addAll(List.of("--soundings", good.resolve("pings.csv").toString(), "--tide-zones", f));
             case "navigation", "attitude", "journal" -> a.addAll(List.of("--soundings", good.resolve("pings.csv").toString(),
                     "--" + c.role(), f));
             default -> a.addAll(List.of("--soundings", good.resolve("pings.csv").toString()));
