@@ -43,6 +43,7 @@ public final class Main implements Callable<Integer> {
             if (ex instanceof InputException || ex instanceof java.nio.file.NoSuchFileException) {
                 String msg = ex instanceof java.nio.file.NoSuchFileException nf
                         ? nf.getFile() + ": file not found" : ex.getMessage();
+                msg = msg.replaceAll("[\\r\\n]+", " "); // one line, even when a quoted value held a line end
                 err.println("leadline: " + msg);
                 if (debug) ex.printStackTrace(err);
                 err.flush();

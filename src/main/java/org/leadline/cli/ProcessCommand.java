@@ -48,6 +48,7 @@ final class ProcessCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        checkOutputFolder(out);
         Project project = buildProject();
         return runAndReport(project, out, quiet, spec);
     }
@@ -69,6 +70,26 @@ final class ProcessCommand implements Callable<Integer> {
         o.flush();
         err.flush();
         return Main.OK;
+    }
+
+    /**
+     * Refuses an output folder that cannot be one before any work is done: an existing file, or a
+     * folder that exists but cannot be written (bad input, exit 2, rather than an internal error
+     * after minutes of processing).
+     */
+    static void checkOutputFolder(Path out) {
+        if (java.nio.file.Files.exists(out) && !java.nio.file.Files.isDirectory(out)) {
+            throw new InputException(out.toString(), 0, 0, "--out: expected a folder, found a file", null);
+        }
+        Path existing = out.toAbsolutePath().normalize();
+        while (existing != null && !java.nio.file.Files.exists(existing)) existing = existing.getParent();
+        if (existing != null && !java.nio.file.Files.isDirectory(existing)) {
+            throw new InputException(out.toString(), 0, 0, "--out: expected a folder, found the file " + existing
+                    + " in its path", null);
+        }
+        if (existing != null && !java.nio.file.Files.isWritable(existing)) {
+            throw new InputException(out.toString(), 0, 0, "--out: cannot write in " + existing, null);
+        }
     }
 
     private Project buildProject() {

@@ -39,9 +39,9 @@ public final class AttitudeCsvReader {
                     if (col[q] < 0) continue;
                     double x = in.number(col[q], NAMES[q]);
                     if (q == AttitudeSeries.ROLL || q == AttitudeSeries.PITCH) {
-                        if (Math.abs(x) > 90) throw in.error(col[q], "expected " + NAMES[q] + " in [-90, 90] degrees, found " + in.text(col[q]));
+                        if (Math.abs(x) > 90) throw in.error(col[q], "expected " + NAMES[q] + " in [-90, 90] degrees, found " + in.quoted(col[q]));
                     } else if (q == AttitudeSeries.HEADING) {
-                        if (x < -360 || x > 360) throw in.error(col[q], "expected a heading in [0, 360) degrees, found " + in.text(col[q]));
+                        if (x < -360 || x > 360) throw in.error(col[q], "expected a heading in [0, 360) degrees, found " + in.quoted(col[q]));
                     }
                     v[q][n] = x;
                 }

@@ -1,64 +1,55 @@
 package org.leadline.io;
 
-import org.apache.commons.csv.CSVFormat;
-import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVRecord;
-
-import java.io.IOException;
-import java.io.Reader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Arrays;
+import java.util.Locale;
 
 /**
  * Reads a bar check table: CSV with columns {@code bar_depth,reading} (metres, both below the
  * still water surface), optional {@code # set_speed: 1500} comment giving the sounder's set speed
- * in m/s. Format in docs/formats.md.
+ * in m/s. Format in docs/formats.md. The rules of every Leadline CSV apply (header names
+ * case-insensitive, {@code #} comments, UTF-8 with or without a byte-order mark, LF or CRLF);
+ * errors name file, line and column.
  */
 public final class BarCheckReader {
     private BarCheckReader() {}
 
+    /** Largest bar check file read, bytes (a bar check has tens of rows). */
+    static final long MAX_BYTES = 16L << 20;
+
     /** A bar check table as read. */
     public record Table(double[] barDepth, double[] reading, double setSpeed) {}
 
-    public static Table read(Path file) throws IOException {
+    public static Table read(Path file) {
+        String text = TextFiles.read(file, MAX_BYTES, "a bar check table");
         double setSpeed = Double.NaN;
-        double[] bar = new double[16], rd = new double[16];
-        int n = 0;
-        CSVFormat fmt = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true)
-                .setCommentMarker('#').setIgnoreSurroundingSpaces(true).setIgnoreHeaderCase(true)
-                .setIgnoreEmptyLines(true).get();
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
-            // set_speed lives in a comment; read it first
-            for (String line : Files.readAllLines(file, StandardCharsets.UTF_8)) {
-                String t = line.strip();
-                if (t.startsWith("#") && t.substring(1).strip().toLowerCase().startsWith("set_speed:")) {
-                    String v = t.substring(t.indexOf(':') + 1).strip();
-                    try {
-                        setSpeed = Double.parseDouble(v);
-                    } catch (NumberFormatException e) {
-                        throw new InputException(file, 0, 0, "set_speed comment: expected a speed in m/s, found '" + v + "'");
-                    }
+        // set_speed lives in a comment; read it first
+        int no = 0;
+        for (String line : text.split("\r\n|\r|\n", -1)) {
+            no++;
+            String t = line.strip();
+            if (t.startsWith("#") && t.substring(1).strip().toLowerCase(Locale.ROOT).startsWith("set_speed:")) {
+                String v = t.substring(t.indexOf(':') + 1).strip();
+                try {
+                    setSpeed = Double.parseDouble(v);
+                } catch (NumberFormatException e) {
+                    setSpeed = Double.NaN;
+                }
+                if (!(setSpeed >= 1300 && setSpeed <= 1800)) {
+                    throw new InputException(file, no, 0, "set_speed comment: expected a speed in m/s (1300..1800), found '"
+                            + TextFiles.abbreviate(v) + "'");
                 }
             }
-            try (CSVParser p = fmt.parse(r)) {
-                var header = p.getHeaderMap();
-                Integer cBar = CsvColumns.find(header, "bar_depth");
-                Integer cRead = CsvColumns.find(header, "reading");
-                if (cBar == null || cRead == null) {
-                    throw new InputException(file, 1, 0, "expected columns bar_depth and reading, found "
-                            + p.getHeaderNames());
-                }
-                for (CSVRecord rec : p) {
-                    long line = rec.getParser().getCurrentLineNumber();
-                    if (n == bar.length) { bar = Arrays.copyOf(bar, 2 * n); rd = Arrays.copyOf(rd, 2 * n); }
-                    bar[n] = CsvColumns.number(file, line, rec, cBar, "bar_depth");
-                    rd[n] = CsvColumns.number(file, line, rec, cRead, "reading");
-                    n++;
-                }
-            } catch (java.io.UncheckedIOException | IllegalStateException e) {
-                throw new InputException(file.toString(), 0, 0, "not a readable CSV table: " + e.getMessage(), e);
+        }
+        double[] bar = new double[16], rd = new double[16];
+        int n = 0;
+        try (CsvInput in = CsvInput.open(file, text)) {
+            int cBar = in.require("bar_depth"), cRead = in.require("reading");
+            while (in.next()) {
+                if (n == bar.length) { bar = Arrays.copyOf(bar, 2 * n); rd = Arrays.copyOf(rd, 2 * n); }
+                bar[n] = in.number(cBar, "bar_depth");
+                rd[n] = in.number(cRead, "reading");
+                n++;
             }
         }
         if (n < 2) throw new InputException(file, "a bar check needs at least two rows, found " + n);

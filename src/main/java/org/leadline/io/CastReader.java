@@ -36,19 +36,21 @@ import java.util.Map;
 public final class CastReader {
     private CastReader() {}
 
+    /** Largest cast file read, bytes: a day of 24 Hz CTD samples is well below it. */
+    static final long MAX_BYTES = 256L << 20;
+
+    /**
+     * Highest practical salinity read as salinity (PSS-78): open-ocean water is 32..38 and the
+     * saltiest seas about 41 (common practice). Seawater conductivity in mS/cm is 30..60, so a
+     * salinity column mostly above this limit holds conductivity: refused (see docs/reliability.md).
+     */
+    static final double MAX_SALINITY = 42;
+
     private static final String[] COLUMNS = {"depth", "pressure", "temperature", "salinity", "conductivity", "sound_speed"};
 
     /** Reads a cast file. */
     public static Cast read(Path file) {
-        String text;
-        try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (java.nio.file.NoSuchFileException e) {
-            throw new InputException(file, "file not found");
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
-        return read(file, text);
+        return read(file, TextFiles.read(file, MAX_BYTES, "a cast file"));
     }
 
     /** Reads cast text; {@code file} names it in messages and as the cast's source. */
@@ -109,7 +111,19 @@ public final class CastReader {
             }
             int iz = col(header, "depth"), ip = col(header, "pressure"), it = col(header, "temperature"),
                     is = col(header, "salinity"), ic = col(header, "conductivity"), iv = col(header, "sound_speed");
-            String found = "found columns: " + String.join(", ", names);
+            String found = "found columns: " + TextFiles.abbreviate(String.join(", ", names));
+            if (names.size() == 1 && TextFiles.otherSeparator(names.get(0)) != 0) {
+                throw new InputException(file, headerLine, 0, "expected comma-separated columns, found a header separated by "
+                        + TextFiles.separatorName(TextFiles.otherSeparator(names.get(0))) + ": '"
+                        + TextFiles.abbreviate(names.get(0)) + "'");
+            }
+            for (int i = 0; i < names.size(); i++) {
+                String nm = names.get(i).trim();
+                if (iz < 0 && TextFiles.feetOrFathoms(nm)) {
+                    throw new InputException(file, headerLine, i + 1, "expected a column depth in metres, found '" + nm
+                            + "', a length in feet or fathoms: convert it to metres");
+                }
+            }
             if (iz < 0 && ip < 0) {
                 throw new InputException(file, headerLine, 0,
                         "no depth or pressure column: expected a column named depth (m) or pressure (dbar); " + found);
@@ -126,13 +140,31 @@ public final class CastReader {
             List<double[]> rows = new ArrayList<>();
             int[] idx = {iz, ip, it, is, ic, iv};
             LineCounter lines = new LineCounter(text);
+            long firstSaltyLine = 0;
+            int salty = 0, salts = 0;
+            boolean endsWithLineEnd = text.endsWith("\n") || text.endsWith("\r");
             for (CSVRecord r : parser) {
                 long line = lines.lineAt(r.getCharacterPosition());
+                if (!endsWithLineEnd && !parser.iterator().hasNext() && r.size() < names.size()) {
+                    throw new InputException(file, line, r.size() + 1, "expected " + names.size() + " fields in the last row, found "
+                            + r.size() + " and no line end: the file looks cut off");
+                }
                 double[] row = new double[6];
                 for (int k = 0; k < 6; k++) {
                     row[k] = idx[k] < 0 ? Double.NaN : number(file, line, r, idx[k], COLUMNS[k]);
                 }
                 rows.add(row);
+                if (Double.isFinite(row[3])) {
+                    salts++;
+                    if (row[3] > MAX_SALINITY) {
+                        if (salty++ == 0) firstSaltyLine = line;
+                    }
+                }
+            }
+            if (salty > 0 && 2 * salty >= salts) {
+                throw new InputException(file, firstSaltyLine, is + 1, "expected practical salinity (PSS-78, at most "
+                        + (int) MAX_SALINITY + "), found " + salty + " of " + salts + " values above it: conductivity in mS/cm?"
+                        + " Name that column 'conductivity'");
             }
             if (rows.isEmpty()) throw new InputException(file, headerLine, 0, "cast has a header but no samples");
             int n = rows.size();
@@ -180,13 +212,19 @@ public final class CastReader {
         if (index >= r.size()) return Double.NaN; // short row: missing values
         String v = r.get(index).trim();
         if (v.isEmpty() || v.equalsIgnoreCase("nan")) return Double.NaN;
+        double d;
         try {
-            double d = Double.parseDouble(v);
-            if (Double.isInfinite(d)) throw new NumberFormatException();
-            return d;
+            d = Double.parseDouble(v);
         } catch (NumberFormatException e) {
-            throw new InputException(file, line, index + 1, column + ": expected a number, found '" + v + "'");
+            d = Double.NaN;
         }
+        if (Double.isInfinite(d)) {
+            throw new InputException(file, line, index + 1, column + ": expected a finite number, found '" + TextFiles.abbreviate(v) + "'");
+        }
+        if (Double.isNaN(d)) {
+            throw new InputException(file, line, index + 1, column + ": expected a number, found '" + TextFiles.abbreviate(v) + "'");
+        }
+        return d;
     }
 
     private static double metaNumber(Path file, Map<String, String> meta, Map<String, Integer> lines, String key,

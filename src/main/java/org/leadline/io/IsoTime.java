@@ -42,7 +42,7 @@ public final class IsoTime {
             return odt.toEpochSecond() + odt.getNano() * 1e-9;
         } catch (DateTimeParseException e) {
             throw new IllegalArgumentException("expected an ISO-8601 UTC time like 2026-05-14T09:15:02.250Z, found '"
-                    + text + "'");
+                    + TextFiles.abbreviate(text) + "'");
         }
     }
 

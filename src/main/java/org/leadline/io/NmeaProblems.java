@@ -67,6 +67,17 @@ public final class NmeaProblems {
         return Collections.unmodifiableList(examples.getOrDefault(kind, List.of()));
     }
 
+    /** One-line summary: the count of each kind that occurred ("3 x checksum does not match; ..."), or "none". */
+    public String oneLine() {
+        StringBuilder sb = new StringBuilder();
+        for (Kind k : Kind.values()) {
+            if (counts[k.ordinal()] == 0) continue;
+            if (sb.length() > 0) sb.append("; ");
+            sb.append(counts[k.ordinal()]).append(" x ").append(k.description);
+        }
+        return sb.length() == 0 ? "none" : sb.toString();
+    }
+
     /** Multi-line summary: one line per kind that occurred, with its count and examples. */
     public String summary() {
         if (total() == 0) return "no problems";

@@ -12,8 +12,10 @@ import org.leadline.survey.PingTable;
  *
  * <p>Rules: every row needs a twtt or a depth (an empty optional field is "not given", NaN);
  * numbers must be finite; lat in [-90, 90], lon in [-180, 180], roll and pitch in [-90, 90],
- * angle in [-90, 90], twtt and depth not negative; times must not decrease (several beams of one
- * ping share a time). Errors carry file, physical line and 1-based field index.
+ * angle in [-90, 90], twtt in [0, 16] s and depth in [0, 12 000] m (beyond: a unit mix-up); times
+ * must not decrease (several beams of one ping share a time); at least one row. Errors carry file,
+ * physical line and 1-based field index; files that are not UTF-8 text are refused at the first
+ * bad byte (docs/reliability.md).
  *
  * <p>Speed: a million rows of twelve columns (94 MB) read in 1.2-1.4 s of CPU on the loaded
  * 2-core build machine, about 0.85 s of it Commons CSV's tokenizing; times go through the
@@ -21,6 +23,15 @@ import org.leadline.survey.PingTable;
  */
 public final class PingCsvReader {
     private PingCsvReader() {}
+
+    /**
+     * Deepest plausible depth below the transducer, m: the deepest ocean sounding is about
+     * 10 900 m (Challenger Deep, from memory); anything beyond 12 000 m is a unit mix-up (feet,
+     * centimetres) or garbage, refused rather than traced.
+     */
+    public static final double MAX_DEPTH = 12_000;
+    /** Longest plausible two-way travel time, s: {@link #MAX_DEPTH} at 1500 m/s, two ways. */
+    public static final double MAX_TWTT = 16;
 
     /** Reads a ping file whose rows carry their own positions (lat, lon required). */
     public static PingTable read(Path file) { return read(file, false); }
@@ -52,12 +63,13 @@ public final class PingCsvReader {
                     cr = in.column("roll"), cp = in.column("pitch"), cl = in.column("line"),
                     cb = in.column("beam"), cq = in.column("quality");
             double previous = Double.NEGATIVE_INFINITY;
+            int rows = 0;
             String lastLine = null;
             int lastLineId = -1;
             while (in.next()) {
                 double t = in.time(ct);
                 if (t < previous) {
-                    throw in.error(ct, "expected times not to decrease, found " + in.text(ct) + " after "
+                    throw in.error(ct, "expected times not to decrease, found " + in.quoted(ct) + " after "
                             + IsoTime.format(previous));
                 }
                 previous = t;
@@ -66,12 +78,20 @@ public final class PingCsvReader {
                 if (clo >= 0 && (!separateNavigation || !in.text(clo).isEmpty())) lon = in.longitude(clo);
                 double twtt = nonNegative(in, ctw, "twtt");
                 double depth = nonNegative(in, cd, "depth");
+                if (twtt > MAX_TWTT) {
+                    throw in.error(ctw, "expected 'twtt' in seconds up to " + (int) MAX_TWTT + " s (" + (int) MAX_DEPTH
+                            + " m of water), found " + in.quoted(ctw) + ": milliseconds, or not two-way travel time?");
+                }
+                if (depth > MAX_DEPTH) {
+                    throw in.error(cd, "expected 'depth' in metres up to " + (int) MAX_DEPTH + " m, found "
+                            + in.quoted(cd) + ": deeper than any ocean (feet or centimetres?)");
+                }
                 if (Double.isNaN(twtt) && Double.isNaN(depth)) {
                     throw in.error(ctw >= 0 ? ctw : cd, "expected a value for 'twtt' or 'depth', found empty fields");
                 }
                 double angle = bounded(in, ca, "angle", 90);
                 double heading = in.optional(ch, "heading");
-                if (heading < -360 || heading > 360) throw in.error(ch, "expected a heading in [0, 360) degrees, found " + in.text(ch));
+                if (heading < -360 || heading > 360) throw in.error(ch, "expected a heading in [0, 360) degrees, found " + in.quoted(ch));
                 double heave = in.optional(chv, "heave");
                 double roll = bounded(in, cr, "roll", 90);
                 double pitch = bounded(in, cp, "pitch", 90);
@@ -87,20 +107,22 @@ public final class PingCsvReader {
                 int beam = in.optionalInt(cb, "beam", -1);
                 int quality = in.optionalInt(cq, "quality", -1);
                 b.addById(t, lat, lon, twtt, depth, angle, heading, heave, roll, pitch, lineId, beam, quality);
+                rows++;
             }
+            if (rows == 0) throw new InputException(file, "expected ping rows after the header, found none");
         }
     }
 
     private static double nonNegative(CsvInput in, int col, String name) {
         double v = in.optional(col, name);
-        if (v < 0) throw in.error(col, "expected '" + name + "' >= 0, found " + in.text(col));
+        if (v < 0) throw in.error(col, "expected '" + name + "' >= 0, found " + in.quoted(col));
         return v;
     }
 
     private static double bounded(CsvInput in, int col, String name, double limit) {
         double v = in.optional(col, name);
         if (Math.abs(v) > limit) {
-            throw in.error(col, "expected '" + name + "' in [-" + (int) limit + ", " + (int) limit + "] degrees, found " + in.text(col));
+            throw in.error(col, "expected '" + name + "' in [-" + (int) limit + ", " + (int) limit + "] degrees, found " + in.quoted(col));
         }
         return v;
     }

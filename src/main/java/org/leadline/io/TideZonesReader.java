@@ -34,6 +34,7 @@ public final class TideZonesReader {
     private static final ObjectMapper MAPPER = new ObjectMapper();
 
     public static List<TideZone> read(Path file) {
+        TextFiles.sniff(file); // gzip, zip or binary: one clear message
         List<TideZone> zones = new ArrayList<>();
         boolean sawType = false, sawFeatures = false;
         try (InputStream in = Files.newInputStream(file); JsonParser p = new JsonFactory(MAPPER).createParser(in)) {
@@ -68,7 +69,7 @@ public final class TideZonesReader {
         } catch (JsonProcessingException e) {
             JsonLocation l = e.getLocation();
             throw new InputException(file.toString(), l == null ? 0 : l.getLineNr(), l == null ? 0 : l.getColumnNr(),
-                    "not valid JSON: " + e.getOriginalMessage(), e);
+                    "not valid JSON: " + TextFiles.abbreviate(e.getOriginalMessage().replaceFirst(" \\(start marker at .*$", "")), e);
         } catch (IOException e) {
             throw new InputException(file.toString(), 0, 0, "cannot read: " + e.getMessage(), e);
         }

@@ -31,12 +31,18 @@ import org.yaml.snakeyaml.nodes.Tag;
 final class YamlInput {
     final Path file;
 
+    /** Largest YAML file read, bytes: vessel and project files are a few kilobytes. */
+    static final long MAX_BYTES = 1L << 20;
+
     YamlInput(Path file) { this.file = file; }
 
     /** The document's top-level mapping. */
     MappingNode load() {
         Node root;
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+        // Size, text and UTF-8 checks first: SnakeYAML takes minutes over a 10 MB scalar before its
+        // own code-point limit trips, and reports a binary file as a decoder exception.
+        String text = TextFiles.read(file, MAX_BYTES, "a YAML file");
+        try (Reader r = new java.io.StringReader(text)) {
             LoaderOptions opts = new LoaderOptions();
             opts.setAllowRecursiveKeys(false);
             opts.setMaxAliasesForCollections(10);
@@ -106,7 +112,7 @@ final class YamlInput {
             } catch (NumberFormatException e) {
                 // fall through to the error
             }
-            throw error(n, "expected a finite number for '" + key + "', found '" + s.getValue() + "'");
+            throw error(n, "expected a finite number for '" + key + "', found '" + TextFiles.abbreviate(s.getValue()) + "'");
         }
         throw error(n, "expected a number for '" + key + "', found " + describe(n));
     }
@@ -121,7 +127,7 @@ final class YamlInput {
     private static String fmt(double d) { return d == Math.rint(d) && Math.abs(d) < 1e15 ? Long.toString((long) d) : Double.toString(d); }
 
     static String describe(Node n) {
-        if (n instanceof ScalarNode s) return Tag.NULL.equals(s.getTag()) ? "nothing" : "'" + s.getValue() + "'";
+        if (n instanceof ScalarNode s) return Tag.NULL.equals(s.getTag()) ? "nothing" : "'" + TextFiles.abbreviate(s.getValue()) + "'";
         if (n instanceof SequenceNode) return "a list";
         if (n instanceof MappingNode) return "a mapping";
         return "something else";

@@ -164,8 +164,10 @@ public final class ProcessingRun {
             SoundingsCsvWriter.write(r.soundings(), out.stage("soundings.csv"));
             GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
                     List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
-                    Map.of("LEADLINE_METHOD", r.method().name().toLowerCase(),
-                            "LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer"));
+                    // a sorted map: Map.of iterates in an order that changes from one JVM to the next,
+                    // which made surface.tif differ byte-wise between two runs on the same inputs
+                    new java.util.TreeMap<>(Map.of("LEADLINE_METHOD", r.method().name().toLowerCase(java.util.Locale.ROOT),
+                            "LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer")));
             XyzWriter.write(r.grid(), out.stage("surface.xyz"));
             writeContours(r, out.stage("contours.geojson"));
             writeSelected(r, out.stage("selected-soundings.geojson"));

@@ -98,6 +98,10 @@ public final class SurveyInputs {
             if (log.problems().total() > 0) warnings.add(f.getFileName() + ": " + log.problems().summary());
             String line = f.getFileName().toString().replaceFirst("\\.[^.]*$", "");
             PingTable t = log.toPingTable(line);
+            if (t.size == 0) {
+                throw new org.leadline.io.InputException(f, "expected depth sentences (DBT or DPT) after a time-bearing"
+                        + " sentence (ZDA, RMC, GGA), found none; problems: " + log.problems().oneLine());
+            }
             NavigationSeries own = nav;
             if (own == null && log.navigationTimes().length >= 2) {
                 own = NavigationSeries.of(log.navigationTimes(), log.navigationLat(), log.navigationLon());
@@ -150,6 +154,8 @@ public final class SurveyInputs {
         } else {
             warnings.add("no water-level record: depths are below the water surface, NOT reduced to chart datum");
         }
+        warnings.addAll(Plausibility.check(cols[3], project.casts(), profiles, vessel.transducerDraft(),
+                vessel.sounderSetSpeed()));
         return new SurveyInputs(vessel, pings, cols, reason, casts, profiles, zoning, warnings);
     }
 

@@ -29,6 +29,6 @@ class BarcheckCommandTest {
         StringWriter out = new StringWriter(), err = new StringWriter();
         int code = Main.run(new String[]{"barcheck", f.toString()}, new PrintWriter(out), new PrintWriter(err));
         assertThat(code).isEqualTo(2);
-        assertThat(err.toString().strip()).isEqualTo("leadline: " + f + ":3:2: reading: expected a number, found 'four'");
+        assertThat(err.toString().strip()).isEqualTo("leadline: " + f + ":3:2: expected a number for 'reading', found 'four'");
     }
 }
