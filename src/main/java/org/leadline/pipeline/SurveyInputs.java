@@ -5,7 +5,7 @@ import org.leadline.io.CastReader;
 import org.leadline.io.NavigationCsvReader;
 import org.leadline.io.NmeaLog;
 import org.leadline.io.NmeaReader;
-import org.leadline.io.PingCsvReader;
+import org.leadline.io.PingFiles;
 import org.leadline.io.TideZonesReader;
 import org.leadline.io.VesselReader;
 import org.leadline.io.WaterLevelCsvReader;
@@ -88,7 +88,7 @@ public final class SurveyInputs {
         List<MergedPings> merged = new ArrayList<>();
         int files = project.soundings().size() + project.nmea().size(), done = 0;
         for (Path f : project.soundings()) {
-            PingTable t = PingCsvReader.read(f, nav != null);
+            PingTable t = PingFiles.read(f, nav != null);
             tables.add(t);
             merged.add(SensorMerge.merge(t, nav, att, vessel));
             progress.fraction(++done / (double) files);
