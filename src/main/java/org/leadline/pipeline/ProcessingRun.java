@@ -155,22 +155,26 @@ public final class ProcessingRun {
     /** Runs and writes every output into {@code outDir}; returns the result. */
     public Result run(Path outDir) throws IOException {
         Result r = compute();
-        progress.stage("Writing outputs");
+        progress.stage("Writing soundings.csv");
         try (OutputFolder out = OutputFolder.open(outDir)) {
             SoundingsCsvWriter.write(r.soundings(), out.stage("soundings.csv"));
+            progress.stage("Writing surface files");
             GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
                     List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
                     Map.of("LEADLINE_METHOD", r.method().name().toLowerCase(),
                             "LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer"));
             XyzWriter.write(r.grid(), out.stage("surface.xyz"));
+            progress.stage("Writing contours and selection");
             writeContours(r, out.stage("contours.geojson"));
             writeSelected(r, out.stage("selected-soundings.geojson"));
             Map<String, String> outputs = new LinkedHashMap<>();
             for (String f : List.of("soundings.csv", "surface.tif", "surface.xyz", "contours.geojson",
                     "selected-soundings.geojson")) outputs.put(f, "produced");
             outputs.put("report.html", "produced");
+            progress.stage("Writing report");
             org.leadline.report.ReportWriter.write(r, project, out.stage("report.html"), out);
             outputs.put("lineage.json", "produced");
+            progress.stage("Writing lineage");
             List<LineageWriter.Input> inputs = new ArrayList<>();
             for (Path p : project.inputs()) {
                 if (p != null && java.nio.file.Files.isRegularFile(p)) inputs.add(LineageWriter.input(role(p), p));
