@@ -29,7 +29,7 @@ for r in $(seq 1 "$RUNS"); do
   echo "run $r: load $(cut -d' ' -f1-3 /proc/loadavg)"
   t=$(wall java -cp "$CP" org.leadline.bench.MedianGridXyz grid "$XYZ" 1 0 3000 0 1000 "$DIR/leadline-median.xyz")
   lt+=("$t"); echo "  leadline: $t s"
-  t=$( cd "$GMTDIR" && wall gmt blockmedian "$XYZ" $R -I1 -r -C --FORMAT_FLOAT_OUT=%.3f > "$DIR/gmt-median.xyz" )
+  t=$( cd "$GMTDIR" && wall sh -c "gmt blockmedian '$XYZ' $R -I1 -r -C --FORMAT_FLOAT_OUT=%.3f > '$DIR/gmt-median.xyz'" )
   gt+=("$t"); echo "  gmt blockmedian: $t s"
 done
 rm -rf "$GMTDIR"
