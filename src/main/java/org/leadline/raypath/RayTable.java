@@ -266,8 +266,9 @@ public final class RayTable {
         double uz = (startDepth - zMin) * invHz;
         int iz = Math.min((int) uz, nz - 2);
         double fz = uz - iz;
-        double ca = bandSpeed[iz];
-        double cz = ca == ca ? ca + fz * (bandSpeed[iz + 1] - ca) : profile.speedAt(startDepth);
+        double ca = bandSpeed[iz], cb = bandSpeed[iz + 1];
+        // a NaN flags a cell with a profile sample inside: then node iz + 1 has no stored speed either
+        double cz = ca == ca && cb == cb ? ca + fz * (cb - ca) : profile.speedAt(startDepth);
         double s = Math.sin(a) * cRef / cz;
         double u = s / Math.sqrt((1 - s) * (1 + s)) * invHw;
         int j = (int) u;                       // stencil: stored rays j .. j+3 (w nodes j-1 .. j+2)
