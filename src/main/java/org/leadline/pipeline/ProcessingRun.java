@@ -161,8 +161,7 @@ public final class ProcessingRun {
             progress.stage("Writing surface files");
             GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
                     List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
-                    Map.of("LEADLINE_METHOD", r.method().name().toLowerCase(),
-                            "LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer"));
+                    tiffMetadata(r));
             XyzWriter.write(r.grid(), out.stage("surface.xyz"));
             progress.stage("Writing contours and selection");
             writeContours(r, out.stage("contours.geojson"));
@@ -228,6 +227,14 @@ public final class ProcessingRun {
             out[k] = table::lookup;
         }
         return out;
+    }
+
+    /** GeoTIFF metadata items in a fixed order (Map.of iterates in an order that changes from one JVM run to the next). */
+    private static Map<String, String> tiffMetadata(Result r) {
+        Map<String, String> m = new LinkedHashMap<>();
+        m.put("LEADLINE_METHOD", r.method().name().toLowerCase());
+        m.put("LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer");
+        return m;
     }
 
     private CrosslineResult crosslines(SoundingTable s, boolean[] acc, GridSpec spec, MapProjection projection,
