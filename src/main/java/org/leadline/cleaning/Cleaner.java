@@ -126,6 +126,21 @@ public final class Cleaner {
         gid = null;
         cand = null;
 
+        boolean[] spike = new boolean[n];
+        // series are independent: contiguous runs of series in parallel tasks, each writing only its
+        // own soundings' flags, so the result does not depend on the number of threads
+        int[] taskStart = tasks(start, groups, m);
+        final int[] ord = order;
+        int untested = java.util.stream.IntStream.range(0, taskStart.length - 1).parallel()
+                .map(t -> spikeSeries(s, cfg, ord, start, taskStart[t], taskStart[t + 1], spike)).sum();
+        restoreSupported(s, spike, cfg.spikeFloor(), cfg.spikeKTvu());
+        for (int i = 0; i < n; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
+        return untested;
+    }
+
+    /** The spike test over series g0..g1-1 (sorted in place by time when needed); returns the untested count. */
+    private static int spikeSeries(SoundingTable s, CleaningSettings cfg, int[] order, int[] start, int g0, int g1,
+                                   boolean[] spike) {
         int win = cfg.spikeWindow();
         int half = win / 2;
         double[] tScratch = new double[win];
@@ -134,11 +149,10 @@ public final class Cleaner {
         double[] resid = new double[win];
         int[] tmp = new int[0];
         double[] lt = new double[0], ld = new double[0];
-        boolean[] spike = new boolean[n];
         int untested = 0;
         double k = cfg.spikeK(), kTvu = cfg.spikeKTvu(), floor = cfg.spikeFloor();
         double[] time = s.time, depth = s.depth, tvu = s.tvu;
-        for (int g = 0; g < groups; g++) {
+        for (int g = g0; g < g1; g++) {
             int from = start[g], to = start[g + 1], len = to - from;
             int kn = Math.min(win, len - 1);
             if (kn < 4) {
@@ -203,9 +217,27 @@ public final class Cleaner {
                 if (dev > Math.max(thr, k * MAD_TO_SIGMA * mad)) spike[i] = true;
             }
         }
-        restoreSupported(s, spike, floor, kTvu);
-        for (int i = 0; i < n; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
         return untested;
+    }
+
+    /**
+     * Splits groups 0..groups-1 (start[] as from countingSort, m items in all) into contiguous runs
+     * of about m/64 items: the boundaries depend only on the data, not on the thread count.
+     */
+    static int[] tasks(int[] start, int groups, int m) {
+        int target = Math.max(4096, m / 64);
+        int[] out = new int[Math.min(groups, 64 * 2 + 2) + 2];
+        int k = 0;
+        out[k++] = 0;
+        int last = 0;
+        for (int g = 1; g < groups; g++) {
+            if (start[g] - start[last] >= target && k < out.length - 1) {
+                out[k++] = g;
+                last = g;
+            }
+        }
+        out[k++] = groups;
+        return Arrays.copyOf(out, k);
     }
 
     /**
@@ -279,71 +311,81 @@ public final class Cleaner {
         cid = null;
         cand = null;
 
-        // cell representative: (mean easting, mean northing, median depth), plus the mean TVU
+        // cell representative: (mean easting, mean northing, median depth), plus the mean TVU;
+        // cells in parallel runs (each writes only its own cells)
         double[] ce = new double[cells], cn = new double[cells], cz = new double[cells], ct = new double[cells];
         boolean[] ok = new boolean[cells];
-        double[] scratch = new double[64];
-        for (int c = 0; c < cells; c++) {
-            int from = start[c], len = start[c + 1] - from;
-            if (scratch.length < len) scratch = new double[Math.max(len, scratch.length * 2)];
-            double se = 0, sn = 0, stv = 0;
-            int nt = 0;
-            for (int q = 0; q < len; q++) {
-                int i = order[from + q];
-                scratch[q] = s.depth[i];
-                se += s.easting[i];
-                sn += s.northing[i];
-                double v = s.tvu[i];
-                if (Double.isFinite(v)) {
-                    stv += v;
-                    nt++;
-                }
-            }
-            ct[c] = nt > 0 ? stv / nt : Double.NaN;
-            if (len < cfg.surfaceMinCount()) continue;
-            ok[c] = true;
-            cz[c] = median(scratch, len);
-            ce[c] = se / len;
-            cn[c] = sn / len;
-        }
-
-        double[] px = new double[9], py = new double[9], pz = new double[9], w = new double[9];
-        double[] plane = new double[3];
-        boolean[] rejectIt = new boolean[n];
-        double kS = cfg.surfaceK();
-        for (int c = 0; c < cells; c++) {
-            long key = cellKeys[c];
-            int cx = (int) (key >> 32), cy = (int) key;
-            double e0 = (cx + 0.5) * cell, n0 = (cy + 0.5) * cell;
-            int np = 0;
-            for (int dx = -1; dx <= 1; dx++) {
-                for (int dy = -1; dy <= 1; dy++) {
-                    int o = ids.get(cellKey(cx + dx, cy + dy));
-                    if (o >= 0 && ok[o]) {
-                        px[np] = ce[o] - e0;
-                        py[np] = cn[o] - n0;
-                        pz[np] = cz[o];
-                        np++;
+        int[] taskStart = tasks(start, cells, m);
+        final int[] ord = order;
+        java.util.stream.IntStream.range(0, taskStart.length - 1).parallel().forEach(t -> {
+            double[] scratch = new double[64];
+            for (int c = taskStart[t]; c < taskStart[t + 1]; c++) {
+                int from = start[c], len = start[c + 1] - from;
+                if (scratch.length < len) scratch = new double[Math.max(len, scratch.length * 2)];
+                double se = 0, sn = 0, stv = 0;
+                int nt = 0;
+                for (int q = 0; q < len; q++) {
+                    int i = ord[from + q];
+                    scratch[q] = s.depth[i];
+                    se += s.easting[i];
+                    sn += s.northing[i];
+                    double v = s.tvu[i];
+                    if (Double.isFinite(v)) {
+                        stv += v;
+                        nt++;
                     }
                 }
+                ct[c] = nt > 0 ? stv / nt : Double.NaN;
+                if (len < cfg.surfaceMinCount()) continue;
+                ok[c] = true;
+                cz[c] = median(scratch, len);
+                ce[c] = se / len;
+                cn[c] = sn / len;
             }
-            int from = start[c], to = start[c + 1];
-            if (np == 0 || !Double.isFinite(ct[c])) {
-                untested += to - from;
-                continue;
-            }
-            fitPlane(px, py, pz, np, kS * ct[c], w, plane);
-            double a = plane[0], bx = plane[1], by = plane[2];
-            for (int q = from; q < to; q++) {
-                int i = order[q];
-                if (!Double.isFinite(s.tvu[i])) {
-                    untested++;
+        });
+
+        boolean[] rejectIt = new boolean[n];
+        double kS = cfg.surfaceK();
+        final long[] keys = cellKeys;
+        untested += java.util.stream.IntStream.range(0, taskStart.length - 1).parallel().map(t -> {
+            double[] px = new double[9], py = new double[9], pz = new double[9], w = new double[9];
+            double[] plane = new double[3];
+            int notTested = 0;
+            for (int c = taskStart[t]; c < taskStart[t + 1]; c++) {
+                long key = keys[c];
+                int cx = (int) (key >> 32), cy = (int) key;
+                double e0 = (cx + 0.5) * cell, n0 = (cy + 0.5) * cell;
+                int np = 0;
+                for (int dx = -1; dx <= 1; dx++) {
+                    for (int dy = -1; dy <= 1; dy++) {
+                        int o = ids.get(cellKey(cx + dx, cy + dy));
+                        if (o >= 0 && ok[o]) {
+                            px[np] = ce[o] - e0;
+                            py[np] = cn[o] - n0;
+                            pz[np] = cz[o];
+                            np++;
+                        }
+                    }
+                }
+                int from = start[c], to = start[c + 1];
+                if (np == 0 || !Double.isFinite(ct[c])) {
+                    notTested += to - from;
                     continue;
                 }
-                double surf = a + bx * (s.easting[i] - e0) + by * (s.northing[i] - n0);
-                if (Math.abs(s.depth[i] - surf) > kS * s.tvu[i]) rejectIt[i] = true;
+                fitPlane(px, py, pz, np, kS * ct[c], w, plane);
+                double a = plane[0], bx = plane[1], by = plane[2];
+                for (int q = from; q < to; q++) {
+                    int i = ord[q];
+                    if (!Double.isFinite(s.tvu[i])) {
+                        notTested++;
+                        continue;
+                    }
+                    double surf = a + bx * (s.easting[i] - e0) + by * (s.northing[i] - n0);
+                    if (Math.abs(s.depth[i] - surf) > kS * s.tvu[i]) rejectIt[i] = true;
+                }
             }
-        }
+            return notTested;
+        }).sum();
         restoreSupported(s, rejectIt, cfg.spikeFloor(), cfg.spikeKTvu());
         for (int i = 0; i < n; i++) if (rejectIt[i]) reject(s, i, Reason.SURFACE, counts);
         return untested;

@@ -11,7 +11,10 @@ import java.util.concurrent.Callable;
 /**
  * The command-line front end (DESIGN.md section 5). Exit codes: 0 success, 2 bad input (one line
  * naming file, line and problem; stack trace only with {@code --debug}), 1 internal error.
- * Subcommands are thin: they parse options, call the library and print.
+ * Subcommands are thin: they parse options, call the library and print. The system property
+ * {@code leadline.threads} (e.g. {@code java -Dleadline.threads=1 -jar leadline.jar ...}) sets the
+ * number of worker threads of the parallel steps (default: the common fork/join pool, one per core);
+ * outputs are the same for any number.
  */
 @Command(name = "leadline", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
         description = "Hydrographic survey processing: echo soundings to depths reduced to chart datum.%n"
@@ -60,7 +63,22 @@ public final class Main implements Callable<Integer> {
             err.flush();
             return BAD_INPUT;
         });
-        return cl.execute(args);
+        // -Dleadline.threads=N: run the command, and so every parallel step under it, in a pool of N threads
+        Integer threads = Integer.getInteger("leadline.threads");
+        if (threads == null || threads < 1) return cl.execute(args);
+        java.util.concurrent.ForkJoinPool pool = new java.util.concurrent.ForkJoinPool(threads);
+        try {
+            return pool.submit(() -> cl.execute(args)).get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            return INTERNAL_ERROR;
+        } catch (java.util.concurrent.ExecutionException e) {
+            err.println("leadline: internal error: " + e.getCause());
+            err.flush();
+            return INTERNAL_ERROR;
+        } finally {
+            pool.shutdown();
+        }
     }
 
     static CommandLine commandLine() {

@@ -15,6 +15,7 @@ final class TerminalProgress implements Progress {
     private final long t0 = System.nanoTime();
     private String stage;
     private long stageStart;
+    private long stageCpu;
     private int lastPercent = -1;
 
     TerminalProgress(PrintWriter err, boolean quiet) {
@@ -27,6 +28,7 @@ final class TerminalProgress implements Progress {
         finish();
         stage = name;
         stageStart = System.nanoTime();
+        stageCpu = processCpu();
         lastPercent = -1;
         if (err != null && interactive) {
             err.print(String.format(Locale.ROOT, "%-34s", name));
@@ -50,11 +52,21 @@ final class TerminalProgress implements Progress {
     synchronized void finish() {
         if (stage != null && err != null) {
             double s = (System.nanoTime() - stageStart) / 1e9;
-            String line = String.format(Locale.ROOT, "%-34s done in %.1f s", stage, s);
+            long cpu = processCpu();
+            // CPU time of the whole process (all threads, GC included): the measure that other work on the machine does not inflate
+            String line = String.format(Locale.ROOT, "%-34s done in %.1f s", stage, s)
+                    + (cpu >= 0 && stageCpu >= 0 ? String.format(Locale.ROOT, " (cpu %.1f s)", (cpu - stageCpu) / 1e9) : "");
             err.println(interactive ? "\r" + line + " ".repeat(10) : line);
             err.flush();
         }
         stage = null;
+    }
+
+    private static long processCpu() {
+        if (java.lang.management.ManagementFactory.getOperatingSystemMXBean() instanceof com.sun.management.OperatingSystemMXBean os) {
+            return os.getProcessCpuTime();
+        }
+        return -1;
     }
 
     double elapsed() { return (System.nanoTime() - t0) / 1e9; }

@@ -2,58 +2,163 @@ package org.leadline.io;
 
 import org.leadline.survey.SoundingTable;
 
-import java.io.BufferedWriter;
 import java.io.IOException;
-import java.io.OutputStreamWriter;
+import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.List;
+import java.util.stream.IntStream;
 
 /**
  * Writes {@code soundings.csv} (DESIGN.md section 4): every sounding, rejected ones included, as
  * {@code time,line,beam,lat,lon,easting,northing,depth,tvu,thu,status,reason}. Fixed decimals:
- * 8 for lat/lon (about 1 mm), 3 for projected coordinates and depths. Numbers are formatted by hand
- * (no String.format) because a swath day has tens of millions of rows.
+ * 8 for lat/lon (about 1 mm), 3 for projected coordinates and depths; times ISO-8601 UTC with
+ * milliseconds, as {@link IsoTime#append} and {@link Fixed#append} write them.
+ *
+ * <p>Speed: a swath day has tens of millions of rows. Rows are formatted by hand straight into
+ * ASCII bytes, in blocks of {@link #BLOCK_ROWS} rows formatted in parallel (common fork/join pool)
+ * and written in row order, so the file is byte-for-byte the same for any number of threads.
  */
 public final class SoundingsCsvWriter {
     public static final String HEADER = "time,line,beam,lat,lon,easting,northing,depth,tvu,thu,status,reason";
+    /** Rows per formatted block (about 4 MB of text). */
+    static final int BLOCK_ROWS = 32_768;
+    /** Blocks formatted at once before they are written (bounds the memory held in text). */
+    static final int BATCH_BLOCKS = 16;
+    private static final long[] POW10 = {1, 10, 100, 1000, 10_000, 100_000, 1_000_000, 10_000_000,
+            100_000_000, 1_000_000_000, 10_000_000_000L};
 
     private SoundingsCsvWriter() {}
 
     /** Writes the table to {@code out} (the caller decides about atomic placement). */
     public static void write(SoundingTable s, Path out) throws IOException {
-        try (BufferedWriter w = new BufferedWriter(new OutputStreamWriter(Files.newOutputStream(out),
-                StandardCharsets.UTF_8), 1 << 16)) {
-            w.write(HEADER);
-            w.write('\n');
-            StringBuilder sb = new StringBuilder(160);
-            for (int i = 0; i < s.size; i++) {
-                sb.setLength(0);
-                IsoTime.append(sb, s.time[i]);
-                sb.append(',');
-                appendField(sb, s.lineName(i));
-                sb.append(',');
-                if (s.beam[i] >= 0) sb.append(s.beam[i]);
-                sb.append(',');
-                Fixed.append(sb, s.lat[i], 8).append(',');
-                Fixed.append(sb, s.lon[i], 8).append(',');
-                Fixed.append(sb, s.easting[i], 3).append(',');
-                Fixed.append(sb, s.northing[i], 3).append(',');
-                Fixed.append(sb, s.depth[i], 3).append(',');
-                Fixed.append(sb, s.tvu[i], 3).append(',');
-                Fixed.append(sb, s.thu[i], 3).append(',');
-                sb.append(SoundingTable.Status.of(s.status[i]).label).append(',');
-                sb.append(SoundingTable.Reason.of(s.reason[i]).label).append('\n');
-                w.append(sb);
+        byte[][] lines = new byte[s.lineNames().size()][];
+        for (int l = 0; l < lines.length; l++) lines[l] = field(s.lineNames().get(l)).getBytes(StandardCharsets.UTF_8);
+        byte[][] status = {SoundingTable.Status.of((byte) 0).label.getBytes(StandardCharsets.UTF_8),
+                SoundingTable.Status.of((byte) 1).label.getBytes(StandardCharsets.UTF_8)};
+        byte[][] reason = new byte[256][];
+        for (SoundingTable.Reason r : SoundingTable.Reason.values()) reason[r.code & 0xff] = r.label.getBytes(StandardCharsets.UTF_8);
+        try (OutputStream os = Files.newOutputStream(out)) {
+            os.write((HEADER + "\n").getBytes(StandardCharsets.US_ASCII));
+            int blocks = (s.size + BLOCK_ROWS - 1) / BLOCK_ROWS;
+            for (int b0 = 0; b0 < blocks; b0 += BATCH_BLOCKS) {
+                int first = b0, count = Math.min(BATCH_BLOCKS, blocks - b0);
+                List<Ascii> text = IntStream.range(first, first + count).parallel()
+                        .mapToObj(b -> format(s, b * BLOCK_ROWS, Math.min(s.size, (b + 1) * BLOCK_ROWS), lines, status, reason))
+                        .toList();
+                for (Ascii t : text) os.write(t.b, 0, t.n);
             }
         }
     }
 
-    private static void appendField(StringBuilder sb, String v) {
-        if (v.indexOf(',') >= 0 || v.indexOf('"') >= 0 || v.indexOf('\n') >= 0) {
-            sb.append('"').append(v.replace("\"", "\"\"")).append('"');
-        } else {
-            sb.append(v);
+    private static String field(String v) {
+        if (v.indexOf(',') >= 0 || v.indexOf('"') >= 0 || v.indexOf('\n') >= 0) return '"' + v.replace("\"", "\"\"") + '"';
+        return v;
+    }
+
+    /** Text of rows [from, to). */
+    private static Ascii format(SoundingTable s, int from, int to, byte[][] lines, byte[][] status, byte[][] reason) {
+        Ascii a = new Ascii(Math.max(256, (to - from) * 140));
+        long lastSecond = Long.MIN_VALUE;
+        byte[] prefix = new byte[0];
+        StringBuilder sb = new StringBuilder(32);
+        for (int i = from; i < to; i++) {
+            a.ensure(512);
+            double t = s.time[i];
+            if (!Double.isNaN(t)) {
+                // IsoTime.append: whole seconds from java.time once per second, milliseconds by hand
+                long ms = Math.round(t * 1000.0);
+                long sec = Math.floorDiv(ms, 1000);
+                if (sec != lastSecond) {
+                    sb.setLength(0);
+                    IsoTime.append(sb, sec);
+                    String p = sb.toString(); // ends ".000Z"
+                    prefix = p.substring(0, p.length() - 4).getBytes(StandardCharsets.US_ASCII);
+                    lastSecond = sec;
+                }
+                a.put(prefix);
+                int milli = (int) Math.floorMod(ms, 1000);
+                a.digit(milli / 100).digit(milli / 10 % 10).digit(milli % 10).put((byte) 'Z');
+            }
+            a.put((byte) ',');
+            if (s.line[i] >= 0) a.put(lines[s.line[i]]);
+            a.put((byte) ',');
+            if (s.beam[i] >= 0) a.integer(s.beam[i]);
+            a.put((byte) ',');
+            a.fixed(s.lat[i], 8).put((byte) ',');
+            a.fixed(s.lon[i], 8).put((byte) ',');
+            a.fixed(s.easting[i], 3).put((byte) ',');
+            a.fixed(s.northing[i], 3).put((byte) ',');
+            a.fixed(s.depth[i], 3).put((byte) ',');
+            a.fixed(s.tvu[i], 3).put((byte) ',');
+            a.fixed(s.thu[i], 3).put((byte) ',');
+            a.put(status[s.status[i] == 0 ? 0 : 1]).put((byte) ',');
+            byte[] why = reason[s.reason[i] & 0xff];
+            if (why == null) SoundingTable.Reason.of(s.reason[i]); // unknown code: refused as before
+            a.put(why).put((byte) '\n');
+        }
+        return a;
+    }
+
+    /** A growable ASCII byte buffer with the number formats of {@link Fixed} and {@link IsoTime}. */
+    private static final class Ascii {
+        private byte[] b;
+        private int n;
+        private final byte[] digits = new byte[20];
+
+        Ascii(int capacity) { b = new byte[capacity]; }
+
+        void ensure(int more) {
+            if (n + more > b.length) b = Arrays.copyOf(b, Math.max(b.length * 2, n + more));
+        }
+
+        Ascii put(byte c) {
+            b[n++] = c;
+            return this;
+        }
+
+        Ascii put(byte[] t) {
+            ensure(t.length);
+            System.arraycopy(t, 0, b, n, t.length);
+            n += t.length;
+            return this;
+        }
+
+        Ascii digit(int d) {
+            b[n++] = (byte) ('0' + d);
+            return this;
+        }
+
+        Ascii integer(long v) {
+            if (v < 0) { put((byte) '-'); v = -v; }
+            int k = 0;
+            do { digits[k++] = (byte) ('0' + v % 10); v /= 10; } while (v > 0);
+            while (k > 0) b[n++] = digits[--k];
+            return this;
+        }
+
+        /** Exactly {@link Fixed#append}: half away from zero, NaN empty, no "-0". */
+        Ascii fixed(double v, int decimals) {
+            if (Double.isNaN(v)) return this;
+            if (Double.isInfinite(v) || Math.abs(v) >= 9e8) {
+                return put(Fixed.append(new StringBuilder(), v, decimals).toString().getBytes(StandardCharsets.US_ASCII));
+            }
+            long scale = POW10[decimals];
+            long q = Math.round(Math.abs(v) * scale);
+            if (v < 0 && q != 0) put((byte) '-');
+            integer(q / scale);
+            if (decimals > 0) {
+                put((byte) '.');
+                long f = q % scale;
+                for (int k = decimals - 1; k >= 0; k--) {
+                    b[n + k] = (byte) ('0' + f % 10);
+                    f /= 10;
+                }
+                n += decimals;
+            }
+            return this;
         }
     }
 }

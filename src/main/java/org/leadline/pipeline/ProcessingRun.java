@@ -159,24 +159,25 @@ public final class ProcessingRun {
     /** Runs and writes every output into {@code outDir}; returns the result. */
     public Result run(Path outDir) throws IOException {
         Result r = compute();
-        progress.stage("Writing outputs");
+        progress.stage("Writing soundings.csv");
         try (OutputFolder out = OutputFolder.open(outDir)) {
             SoundingsCsvWriter.write(r.soundings(), out.stage("soundings.csv"));
+            progress.stage("Writing surface files");
             GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
                     List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
-                    // a sorted map: Map.of iterates in an order that changes from one JVM to the next,
-                    // which made surface.tif differ byte-wise between two runs on the same inputs
-                    new java.util.TreeMap<>(Map.of("LEADLINE_METHOD", r.method().name().toLowerCase(java.util.Locale.ROOT),
-                            "LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer")));
+                    tiffMetadata(r));
             XyzWriter.write(r.grid(), out.stage("surface.xyz"));
+            progress.stage("Writing contours and selection");
             writeContours(r, out.stage("contours.geojson"));
             writeSelected(r, out.stage("selected-soundings.geojson"));
             Map<String, String> outputs = new LinkedHashMap<>();
             for (String f : List.of("soundings.csv", "surface.tif", "surface.xyz", "contours.geojson",
                     "selected-soundings.geojson")) outputs.put(f, "produced");
             outputs.put("report.html", "produced");
+            progress.stage("Writing report");
             org.leadline.report.ReportWriter.write(r, project, out.stage("report.html"), out);
             outputs.put("lineage.json", "produced");
+            progress.stage("Writing lineage");
             List<LineageWriter.Input> inputs = new ArrayList<>();
             for (Path p : project.inputs()) {
                 if (p != null && java.nio.file.Files.isRegularFile(p)) inputs.add(LineageWriter.input(role(p), p));
@@ -230,6 +231,14 @@ public final class ProcessingRun {
             out[k] = table::lookup;
         }
         return out;
+    }
+
+    /** GeoTIFF metadata items in a fixed order (Map.of iterates in an order that changes from one JVM run to the next). */
+    private static Map<String, String> tiffMetadata(Result r) {
+        Map<String, String> m = new LinkedHashMap<>();
+        m.put("LEADLINE_METHOD", r.method().name().toLowerCase());
+        m.put("LEADLINE_CAUTION", "Not for navigation unless validated by a qualified hydrographer");
+        return m;
     }
 
     private CrosslineResult crosslines(SoundingTable s, boolean[] acc, GridSpec spec, MapProjection projection,

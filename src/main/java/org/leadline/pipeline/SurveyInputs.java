@@ -5,7 +5,7 @@ import org.leadline.io.CastReader;
 import org.leadline.io.NavigationCsvReader;
 import org.leadline.io.NmeaLog;
 import org.leadline.io.NmeaReader;
-import org.leadline.io.PingCsvReader;
+import org.leadline.io.PingFiles;
 import org.leadline.io.TideZonesReader;
 import org.leadline.io.VesselReader;
 import org.leadline.io.WaterLevelCsvReader;
@@ -88,7 +88,7 @@ public final class SurveyInputs {
         List<MergedPings> merged = new ArrayList<>();
         int files = project.soundings().size() + project.nmea().size(), done = 0;
         for (Path f : project.soundings()) {
-            PingTable t = PingCsvReader.read(f, nav != null);
+            PingTable t = PingFiles.read(f, nav != null);
             tables.add(t);
             merged.add(SensorMerge.merge(t, nav, att, vessel));
             progress.fraction(++done / (double) files);
@@ -176,8 +176,34 @@ public final class SurveyInputs {
         return Math.ceil(deep + v.transducerDraft() + 2);
     }
 
+    /** The upper median of the finite values (element n/2 in sorted order), by selection: O(n), no full sort. */
     static double median(double[] a) {
-        double[] f = Arrays.stream(a).filter(Double::isFinite).sorted().toArray();
-        return f.length == 0 ? Double.NaN : f[f.length / 2];
+        double[] f = Arrays.stream(a).filter(Double::isFinite).toArray();
+        if (f.length == 0) return Double.NaN;
+        int k = f.length / 2, lo = 0, hi = f.length - 1;
+        // Hoare's selection (Hoare 1961, Commun. ACM 4:321) with a median-of-three pivot
+        while (hi > lo) {
+            int mid = (lo + hi) >>> 1;
+            if (f[mid] < f[lo]) swap(f, mid, lo);
+            if (f[hi] < f[lo]) swap(f, hi, lo);
+            if (f[hi] < f[mid]) swap(f, hi, mid);
+            double pivot = f[mid];
+            int i = lo, j = hi;
+            while (i <= j) {
+                while (f[i] < pivot) i++;
+                while (f[j] > pivot) j--;
+                if (i <= j) swap(f, i++, j--);
+            }
+            if (k <= j) hi = j;
+            else if (k >= i) lo = i;
+            else return f[k];
+        }
+        return f[k];
+    }
+
+    private static void swap(double[] f, int i, int j) {
+        double t = f[i];
+        f[i] = f[j];
+        f[j] = t;
     }
 }

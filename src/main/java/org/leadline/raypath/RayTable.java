@@ -266,8 +266,9 @@ public final class RayTable {
         double uz = (startDepth - zMin) * invHz;
         int iz = Math.min((int) uz, nz - 2);
         double fz = uz - iz;
-        double ca = bandSpeed[iz];
-        double cz = ca == ca ? ca + fz * (bandSpeed[iz + 1] - ca) : profile.speedAt(startDepth);
+        double ca = bandSpeed[iz], cb = bandSpeed[iz + 1];
+        // a NaN flags a cell with a profile sample inside: then node iz + 1 has no stored speed either
+        double cz = ca == ca && cb == cb ? ca + fz * (cb - ca) : profile.speedAt(startDepth);
         // u = tan(th_r) / hw with sin(th_r) = sin(a) cRef / c(zs), in one division and one square root
         double sc = Math.sin(a) * cRef;
         double u = sc * invHw / Math.sqrt((cz - sc) * (cz + sc));

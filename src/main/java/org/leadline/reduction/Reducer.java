@@ -103,15 +103,36 @@ public final class Reducer {
         int chunks = (n + chunk - 1) / chunk;
         IntStream.range(0, chunks).parallel().forEach(c -> {
             double[] out = new double[2], out2 = new double[2];
+            PingState ping = new PingState();
             int end = Math.min(n, (c + 1) * chunk);
-            for (int i = c * chunk; i < end; i++) reduceOne(i, pings, in, tracers, choice, waterLevel, s, out, out2);
+            for (int i = c * chunk; i < end; i++) reduceOne(i, pings, in, tracers, choice, waterLevel, s, out, out2, ping);
         });
         projector.forward(s.lat, s.lon, s.easting, s.northing);
         return s;
     }
 
+    /**
+     * What depends only on the ping's sensor state (attitude, heave, speed, position): the beams of
+     * one ping share it, so it is computed once per ping. The same expressions on the same inputs,
+     * so the results are bit-for-bit those of computing it per beam.
+     */
+    private static final class PingState {
+        boolean valid;
+        double roll, pitch, heave, heading, sog, lat;
+        double cf, sf, ct, st, zt, ch, sh, fwd0, stb0, meridian, primeVertical, cosLat;
+
+        boolean matches(double roll, double pitch, double heave, double heading, double sog, double lat) {
+            return valid && same(roll, this.roll) && same(pitch, this.pitch) && same(heave, this.heave)
+                    && same(heading, this.heading) && same(sog, this.sog) && same(lat, this.lat);
+        }
+
+        private static boolean same(double a, double b) {
+            return Double.doubleToRawLongBits(a) == Double.doubleToRawLongBits(b);
+        }
+    }
+
     private void reduceOne(int i, PingTable p, MergedInputs in, BeamTracer[] tracers, CastChoice choice,
-                           WaterLevelAt waterLevel, SoundingTable s, double[] out, double[] out2) {
+                           WaterLevelAt waterLevel, SoundingTable s, double[] out, double[] out2, PingState ps) {
         s.time[i] = p.time[i];
         s.line[i] = p.line[i];
         s.beam[i] = p.beam[i];
@@ -142,15 +163,33 @@ public final class Reducer {
             return;
         }
         double roll = nz(in.roll()[i]), pitch = nz(in.pitch()[i]), heave = nz(in.heave()[i]);
-        double hdg = Math.toRadians(nz(in.heading()[i]));
-        double phi = Math.toRadians(roll), th = Math.toRadians(pitch);
-        double cf = Math.cos(phi), sf = Math.sin(phi), ct = Math.cos(th), st = Math.sin(th);
-
-        // Ry(pitch) Rx(roll) applied to v = (x, y, z): level-frame (forward, starboard, down) components
-        Vessel.Offset T = vessel.transducerOffset(), P = vessel.positionOffset();
-        double indHeave = levelZ(T.x(), T.y(), T.z(), cf, sf, ct, st) - T.z();
+        double headingDeg = nz(in.heading()[i]);
         double sog = in.speedOverGround()[i];
-        double zt = vessel.transducerDraft() + vessel.settlement(sog) - heave + indHeave;
+        Vessel.Offset T = vessel.transducerOffset(), P = vessel.positionOffset();
+        double dx = T.x() - P.x(), dy = T.y() - P.y(), dz = T.z() - P.z();
+        if (!ps.matches(roll, pitch, heave, headingDeg, sog, lat)) {
+            double hdg = Math.toRadians(headingDeg);
+            double phi = Math.toRadians(roll), th = Math.toRadians(pitch);
+            double cf = Math.cos(phi), sf = Math.sin(phi), ct = Math.cos(th), st = Math.sin(th);
+            // Ry(pitch) Rx(roll) applied to v = (x, y, z): level-frame (forward, starboard, down) components
+            double indHeave = levelZ(T.x(), T.y(), T.z(), cf, sf, ct, st) - T.z();
+            ps.zt = vessel.transducerDraft() + vessel.settlement(sog) - heave + indHeave;
+            ps.cf = cf; ps.sf = sf; ps.ct = ct; ps.st = st;
+            ps.ch = Math.cos(hdg);
+            ps.sh = Math.sin(hdg);
+            ps.fwd0 = levelX(dx, dy, dz, cf, sf, ct, st);
+            ps.stb0 = levelY(dx, dy, dz, cf, sf);
+            double latR = Math.toRadians(lat);
+            double sl = Math.sin(latR);
+            double w2 = 1 - WGS84_E2 * sl * sl;
+            ps.primeVertical = WGS84_A / Math.sqrt(w2);
+            ps.meridian = WGS84_A * (1 - WGS84_E2) / (w2 * Math.sqrt(w2));
+            ps.cosLat = Math.cos(latR);
+            ps.roll = roll; ps.pitch = pitch; ps.heave = heave; ps.heading = headingDeg; ps.sog = sog; ps.lat = lat;
+            ps.valid = true;
+        }
+        double cf = ps.cf, sf = ps.sf, ct = ps.ct, st = ps.st;
+        double zt = ps.zt;
 
         // Launch direction in the level frame
         double lf, ls, ld; // forward, starboard, down components of the unit launch vector
@@ -180,22 +219,17 @@ public final class Reducer {
         double surfaceDepth = zt + out[0];
         s.surfaceDepth[i] = surfaceDepth;
         s.launchAngle[i] = theta;
-        s.acrossTrack[i] = out[1] * Math.sin(azRel) + levelY(T.x() - P.x(), T.y() - P.y(), T.z() - P.z(), cf, sf);
+        double sinAz = Math.sin(azRel), cosAz = Math.cos(azRel);
+        s.acrossTrack[i] = out[1] * sinAz + ps.stb0;
 
         // Horizontal offset of the footprint from the position reference, level frame then north/east
-        double dx = T.x() - P.x(), dy = T.y() - P.y(), dz = T.z() - P.z();
-        double fwd = levelX(dx, dy, dz, cf, sf, ct, st) + out[1] * Math.cos(azRel);
-        double stb = levelY(dx, dy, dz, cf, sf) + out[1] * Math.sin(azRel);
-        double ch = Math.cos(hdg), sh = Math.sin(hdg);
+        double fwd = ps.fwd0 + out[1] * cosAz;
+        double stb = ps.stb0 + out[1] * sinAz;
+        double ch = ps.ch, sh = ps.sh;
         double north = fwd * ch - stb * sh;
         double east = fwd * sh + stb * ch;
-        double latR = Math.toRadians(lat);
-        double sl = Math.sin(latR);
-        double w2 = 1 - WGS84_E2 * sl * sl;
-        double primeVertical = WGS84_A / Math.sqrt(w2);
-        double meridian = WGS84_A * (1 - WGS84_E2) / (w2 * Math.sqrt(w2));
-        s.lat[i] = lat + Math.toDegrees(north / meridian);
-        s.lon[i] = wrapLon(lon + Math.toDegrees(east / (primeVertical * Math.cos(latR))));
+        s.lat[i] = lat + Math.toDegrees(north / ps.meridian);
+        s.lon[i] = wrapLon(lon + Math.toDegrees(east / (ps.primeVertical * ps.cosLat)));
         double level = waterLevel.level(p.time[i], s.lat[i], s.lon[i]);
         s.depth[i] = surfaceDepth - level;
         if (Double.isNaN(level)) {

@@ -136,14 +136,19 @@ public final class SensorMerge {
 
     /** The ping file's own positions as a track: first position of each distinct time; null if none. */
     static NavigationSeries trackOf(PingTable p) {
-        Integer[] order = new Integer[p.size];
+        // primitive indices: a swath day has tens of millions of rows (boxing them cost seconds and GBs)
+        int[] idx = new int[p.size];
         int k = 0;
-        for (int i = 0; i < p.size; i++) if (!Double.isNaN(p.lat[i]) && !Double.isNaN(p.lon[i])) order[k++] = i;
+        for (int i = 0; i < p.size; i++) if (!Double.isNaN(p.lat[i]) && !Double.isNaN(p.lon[i])) idx[k++] = i;
         if (k < 2) return null;
-        Integer[] idx = Arrays.copyOf(order, k);
         boolean sorted = true;
         for (int j = 1; j < k && sorted; j++) sorted = p.time[idx[j]] >= p.time[idx[j - 1]];
-        if (!sorted) Arrays.sort(idx, (a, b) -> Double.compare(p.time[a], p.time[b])); // stable: first stays first
+        if (!sorted) { // rare (ping files have non-decreasing times): stable sort, first stays first
+            Integer[] boxed = new Integer[k];
+            for (int j = 0; j < k; j++) boxed[j] = idx[j];
+            Arrays.sort(boxed, (a, b) -> Double.compare(p.time[a], p.time[b]));
+            for (int j = 0; j < k; j++) idx[j] = boxed[j];
+        }
         double[] t = new double[k], la = new double[k], lo = new double[k];
         int n = 0;
         for (int j = 0; j < k; j++) {

@@ -51,6 +51,33 @@ public final class PingTable {
         lineNames = List.copyOf(b.lineNames);
     }
 
+    private PingTable(int size, double[][] d, int[][] i, List<String> lineNames) {
+        this.size = size;
+        time = d[0]; lat = d[1]; lon = d[2]; twtt = d[3]; depth = d[4]; angle = d[5];
+        heading = d[6]; heave = d[7]; roll = d[8]; pitch = d[9];
+        line = i[0]; beam = i[1]; quality = i[2];
+        this.lineNames = List.copyOf(lineNames);
+    }
+
+    /**
+     * A table over columns the caller has filled (bulk readers: no per-row copy). The arrays are
+     * taken over, not copied; each must hold exactly {@code size} values; {@code line} indexes
+     * {@code lineNames} (-1: none).
+     */
+    public static PingTable ofColumns(int size, double[] time, double[] lat, double[] lon, double[] twtt,
+                                      double[] depth, double[] angle, double[] heading, double[] heave,
+                                      double[] roll, double[] pitch, int[] line, int[] beam, int[] quality,
+                                      List<String> lineNames) {
+        double[][] d = {time, lat, lon, twtt, depth, angle, heading, heave, roll, pitch};
+        int[][] i = {line, beam, quality};
+        for (double[] a : d) if (a.length != size) throw new IllegalArgumentException("column length " + a.length + " != " + size);
+        for (int[] a : i) if (a.length != size) throw new IllegalArgumentException("column length " + a.length + " != " + size);
+        for (int v : line) {
+            if (v < -1 || v >= lineNames.size()) throw new IllegalArgumentException("line index " + v + " outside the line names");
+        }
+        return new PingTable(size, d, i, lineNames);
+    }
+
     public List<String> lineNames() { return lineNames; }
 
     /** Name of the survey line of ping i ("" when none was given). */
