@@ -48,7 +48,8 @@ public final class PingCsvReader {
      */
     public static PingTable read(Path file, boolean separateNavigation) {
         PingTable fast = ParallelPingCsv.read(file, separateNavigation);
-        if (fast != null) return fast;
+        if (fast != null && plausible(fast)) return fast;
+        // the careful path reads again and reports the exact problem (file, line, column)
         PingTable.Builder b = new PingTable.Builder();
         readInto(file, separateNavigation, b);
         return b.build();
@@ -117,6 +118,20 @@ public final class PingCsvReader {
             }
             if (rows == 0) throw new InputException(file, "expected ping rows after the header, found none");
         }
+    }
+
+    /**
+     * Whether the fast parallel parse can be trusted as is: rows present, travel times and depths
+     * within {@link #MAX_TWTT} and {@link #MAX_DEPTH}, line names valid UTF-8 (the fast path
+     * decodes names leniently). Otherwise the careful path runs and names the problem.
+     */
+    private static boolean plausible(PingTable t) {
+        if (t.size == 0) return false;
+        for (int i = 0; i < t.size; i++) {
+            if (t.twtt[i] > MAX_TWTT || t.depth[i] > MAX_DEPTH) return false;
+        }
+        for (String name : t.lineNames()) if (name.indexOf('\uFFFD') >= 0) return false;
+        return true;
     }
 
     private static double nonNegative(CsvInput in, int col, String name) {
