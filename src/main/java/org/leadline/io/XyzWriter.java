@@ -2,7 +2,6 @@ package org.leadline.io;
 
 import org.leadline.surface.Grid;
 
-import java.io.BufferedWriter;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -31,25 +30,33 @@ public final class XyzWriter {
         if (depth == null) throw new IllegalArgumentException("grid has no '" + Grid.DEPTH + "' layer to write to " + out);
         float[] unc = grid.layer(Grid.UNCERTAINTY);
         float[] count = grid.layer(Grid.COUNT);
+        // rows formatted in parallel blocks and written in row order: the same bytes for any thread count
+        int rowsPerBlock = Math.max(1, 65_536 / Math.max(1, grid.nx)), blocks = (grid.ny + rowsPerBlock - 1) / rowsPerBlock;
         AtomicFiles.write(out, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
-                StringBuilder sb = new StringBuilder(96);
-                w.write(HEADER);
-                w.write('\n');
-                for (int r = 0; r < grid.ny; r++) {
-                    double y = grid.centreY(r);
-                    for (int c = 0; c < grid.nx; c++) {
-                        int i = r * grid.nx + c;
-                        if (Float.isNaN(depth[i])) continue;
-                        sb.setLength(0);
-                        fixed3(sb, grid.centreX(c)).append(',');
-                        fixed3(sb, y).append(',');
-                        fixed3(sb, depth[i]).append(',');
-                        fixed3(sb, unc == null ? Double.NaN : unc[i]).append(',');
-                        if (count == null || Float.isNaN(count[i])) sb.append("NaN");
-                        else sb.append(Math.round(count[i]));
-                        w.append(sb).append('\n');
-                    }
+            try (java.io.OutputStream os = Files.newOutputStream(tmp)) {
+                os.write((HEADER + "\n").getBytes(StandardCharsets.UTF_8));
+                for (int b0 = 0; b0 < blocks; b0 += 32) {
+                    int first = b0, last = Math.min(blocks, b0 + 32);
+                    java.util.List<byte[]> text = java.util.stream.IntStream.range(first, last).parallel().mapToObj(b -> {
+                        StringBuilder sb = new StringBuilder(96 * 1024);
+                        int r1 = Math.min(grid.ny, (b + 1) * rowsPerBlock);
+                        for (int r = b * rowsPerBlock; r < r1; r++) {
+                            double y = grid.centreY(r);
+                            for (int c = 0; c < grid.nx; c++) {
+                                int i = r * grid.nx + c;
+                                if (Float.isNaN(depth[i])) continue;
+                                fixed3(sb, grid.centreX(c)).append(',');
+                                fixed3(sb, y).append(',');
+                                fixed3(sb, depth[i]).append(',');
+                                fixed3(sb, unc == null ? Double.NaN : unc[i]).append(',');
+                                if (count == null || Float.isNaN(count[i])) sb.append("NaN");
+                                else sb.append(Math.round(count[i]));
+                                sb.append('\n');
+                            }
+                        }
+                        return sb.toString().getBytes(StandardCharsets.UTF_8);
+                    }).toList();
+                    for (byte[] t : text) os.write(t);
                 }
             }
         });

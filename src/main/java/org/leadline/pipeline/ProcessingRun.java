@@ -94,13 +94,16 @@ public final class ProcessingRun {
         progress.stage("Estimating uncertainty");
         double[] cTransducer = new double[n];
         double[] zoneSigma = new double[n];
-        for (int i = 0; i < n; i++) {
-            int c = Math.max(0, choice.castA()[i]);
-            double zt = in.vessel.transducerDraft() - (Double.isNaN(in.heave[i]) ? 0 : in.heave[i]);
-            cTransducer[i] = profiles.get(c).speedAt(zt);
-            zoneSigma[i] = in.waterLevel != null && Double.isFinite(s.lat[i])
-                    && in.waterLevel.zoneAt(s.lat[i], s.lon[i]) >= 0 ? in.vessel.sigma().tideZone() : 0;
-        }
+        // rows in parallel blocks, each row written by one task: the same values for any thread count
+        java.util.stream.IntStream.range(0, (n + 65_535) / 65_536).parallel().forEach(b -> {
+            for (int i = b * 65_536, end = Math.min(n, (b + 1) * 65_536); i < end; i++) {
+                int c = Math.max(0, choice.castA()[i]);
+                double zt = in.vessel.transducerDraft() - (Double.isNaN(in.heave[i]) ? 0 : in.heave[i]);
+                cTransducer[i] = profiles.get(c).speedAt(zt);
+                zoneSigma[i] = in.waterLevel != null && Double.isFinite(s.lat[i])
+                        && in.waterLevel.zoneAt(s.lat[i], s.lon[i]) >= 0 ? in.vessel.sigma().tideZone() : 0;
+            }
+        });
         TpuModel tpu = new TpuModel(in.vessel);
         tpu.compute(s, in.heave, cTransducer, zoneSigma);
         checkCancel();

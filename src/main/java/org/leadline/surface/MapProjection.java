@@ -278,7 +278,7 @@ public final class MapProjection {
         if (f.length == 0) return Double.NaN;
         if (longitude) {
             for (int i = 0; i < f.length; i++) f[i] = wrap(f[i]);
-            Arrays.sort(f);
+            Arrays.parallelSort(f); // same order as Arrays.sort; a swath day has tens of millions of positions
             // Largest gap between sorted longitudes (including the wrap-around one) marks the data's outside.
             int cut = 0;
             double gap = f[0] + 360 - f[f.length - 1];
@@ -287,7 +287,7 @@ public final class MapProjection {
             }
             for (int i = 0; i < cut; i++) f[i] += 360;
         }
-        Arrays.sort(f);
+        Arrays.parallelSort(f);
         int h = f.length / 2;
         double m = f.length % 2 == 1 ? f[h] : 0.5 * (f[h - 1] + f[h]);
         return longitude ? wrap(m) : m;

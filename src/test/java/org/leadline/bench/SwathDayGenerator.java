@@ -29,7 +29,7 @@ import org.leadline.survey.PingTable;
  * DESIGN.md section 3); roll 3 deg (8 s period), pitch 1.5 deg (6 s), heave 0.3 m (7 s); two-way
  * times of the ray bent through the cast's profile ({@link RayTable}, i.e. Leadline's own ray
  * bending: the day is consistent with the processing, it is not an independent reference) to the
- * local seabed plane under the nadir, plus 0.1 % range noise and 1 in 20 000 spikes.
+ * seabed where the ray meets it, plus 0.1 % range noise and 1 in 20 000 spikes.
  *
  * <pre>
  * java -cp target/classes:target/test-classes org.leadline.bench.SwathDayGenerator \
@@ -181,10 +181,11 @@ public final class SwathDayGenerator {
 
 
     /** Seabed depth (m, below mean water) at local east x, north y (m): sloping with sand waves. */
-    /** Depth of the ray below the seabed plane (negative above it) after one-way time t. */
-    private static double miss(RayTable rays, double zt, double th, double t, double d0, double slope, double[] out) {
+    /** Depth of the ray below the seabed (negative above it) after one-way time t, the seabed taken where the ray is. */
+    private static double miss(RayTable rays, double zt, double th, double t, double x0, double y0, double sx, double sy,
+                               double tide, double[] out) {
         rays.lookup(zt, th, t, out);
-        return zt + out[0] - (d0 + slope * out[1]);
+        return zt + out[0] - (seabed(x0 + sx * out[1], y0 + sy * out[1]) + tide);
     }
 
     static double seabed(double x, double y) {
@@ -220,14 +221,15 @@ public final class SwathDayGenerator {
             for (int b = 0; b < beams && written < soundings; b++, written++) {
                 double angle = -65 + 130.0 * b / (beams - 1);
                 double th = Math.toRadians(angle - roll);
-                // one-way time at which the bent ray meets the seabed plane: secant iterations on
-                // miss(t) = ray depth - seabed depth under the ray, from the straight-ray guess at 1500 m/s
+                // one-way time at which the bent ray meets the seabed: secant iterations on miss(t) = ray
+                // depth - seabed depth under the ray, from the straight-ray guess to the local plane at 1500 m/s
                 double t0 = (d0 - zt) / (Math.cos(th) - slope * Math.sin(th)) / 1500, t1 = t0 * 1.01;
-                double m0 = miss(rays, zt, th, t0, d0, slope, out), m1 = miss(rays, zt, th, t1, d0, slope, out);
-                for (int it = 0; it < 6 && Math.abs(m1) > 1e-5 && m1 != m0; it++) {
+                double m0 = miss(rays, zt, th, t0, along, northing, sx, sy, tide, out);
+                double m1 = miss(rays, zt, th, t1, along, northing, sx, sy, tide, out);
+                for (int it = 0; it < 8 && Math.abs(m1) > 1e-5 && m1 != m0; it++) {
                     double t2 = t1 - m1 * (t1 - t0) / (m1 - m0);
                     t0 = t1; m0 = m1;
-                    t1 = t2; m1 = miss(rays, zt, th, t1, d0, slope, out);
+                    t1 = t2; m1 = miss(rays, zt, th, t1, along, northing, sx, sy, tide, out);
                 }
                 double noise = 1 + 0.001 * rnd.nextGaussian();
                 if (rnd.nextInt(20_000) == 0) noise *= 0.6 + 0.8 * rnd.nextDouble(); // spike
