@@ -161,6 +161,15 @@ public final class ProcessingRun {
 
     /** Runs and writes every output into {@code outDir}; returns the result. */
     public Result run(Path outDir) throws IOException {
+        // the inputs are hashed (SHA-256, for lineage and report) on their own thread while the
+        // science runs: on a multibeam day that is seconds of reading that need not wait
+        java.util.concurrent.ExecutorService hasher = java.util.concurrent.Executors.newSingleThreadExecutor(rn -> {
+            Thread t = new Thread(rn, "leadline-input-hashes");
+            t.setDaemon(true);
+            return t;
+        });
+        java.util.concurrent.Future<List<LineageWriter.Input>> hashes = hasher.submit(this::hashInputs);
+        hasher.shutdown();
         Result r = compute();
         progress.stage("Writing soundings.csv");
         try (OutputFolder out = OutputFolder.open(outDir)) {
@@ -178,13 +187,10 @@ public final class ProcessingRun {
                     "selected-soundings.geojson")) outputs.put(f, "produced");
             outputs.put("report.html", "produced");
             progress.stage("Writing report");
-            org.leadline.report.ReportWriter.write(r, project, out.stage("report.html"), out);
+            List<LineageWriter.Input> inputs = await(hashes);
+            org.leadline.report.ReportWriter.write(r, project, inputs, out.stage("report.html"), out);
             outputs.put("lineage.json", "produced");
             progress.stage("Writing lineage");
-            List<LineageWriter.Input> inputs = new ArrayList<>();
-            for (Path p : project.inputs()) {
-                if (p != null && java.nio.file.Files.isRegularFile(p)) inputs.add(LineageWriter.input(role(p), p));
-            }
             LineageWriter.write(out.stage("lineage.json"), version(), r.started(), Instant.now().toString(), inputs,
                     settings(r), outputs, r.warnings());
             out.commit();
@@ -352,6 +358,27 @@ public final class ProcessingRun {
         }
         m.put("casts_used", casts);
         return m;
+    }
+
+    private List<LineageWriter.Input> hashInputs() throws IOException {
+        List<LineageWriter.Input> inputs = new ArrayList<>();
+        for (Path p : project.inputs()) {
+            if (p != null && java.nio.file.Files.isRegularFile(p)) inputs.add(LineageWriter.input(role(p), p));
+        }
+        return inputs;
+    }
+
+    private static List<LineageWriter.Input> await(java.util.concurrent.Future<List<LineageWriter.Input>> f) throws IOException {
+        try {
+            return f.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IOException("interrupted while hashing the inputs", e);
+        } catch (java.util.concurrent.ExecutionException e) {
+            if (e.getCause() instanceof IOException io) throw io;
+            if (e.getCause() instanceof RuntimeException re) throw re;
+            throw new IOException(e.getCause());
+        }
     }
 
     private String role(Path p) {

@@ -26,6 +26,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Base64;
+import java.util.List;
 import java.util.Locale;
 
 /**
@@ -37,7 +38,11 @@ import java.util.Locale;
 public final class ReportWriter {
     private ReportWriter() {}
 
-    public static void write(ProcessingRun.Result r, Project project, Path html, OutputFolder out) throws IOException {
+    /**
+     * @param inputs the run's inputs with their SHA-256 (as written to lineage.json)
+     */
+    public static void write(ProcessingRun.Result r, Project project, List<org.leadline.io.LineageWriter.Input> inputs,
+                             Path html, OutputFolder out) throws IOException {
         StringBuilder h = new StringBuilder(1 << 15);
         h.append("<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>Leadline processing report</title>")
                 .append("<style>body{font-family:sans-serif;max-width:60em;margin:2em auto;color:#222}")
@@ -58,10 +63,9 @@ public final class ReportWriter {
         h.append("</table>\n");
 
         h.append("<h2 id=\"inputs\">Inputs</h2><table><tr><th>file</th><th>SHA-256</th></tr>");
-        for (Path p : project.inputs()) {
-            if (p == null || !Files.isRegularFile(p)) continue;
-            h.append("<tr><td style=\"text-align:left\">").append(esc(p.getFileName().toString())).append("</td><td><code>")
-                    .append(org.leadline.io.LineageWriter.sha256(p)).append("</code></td></tr>");
+        for (org.leadline.io.LineageWriter.Input in : inputs) {
+            h.append("<tr><td style=\"text-align:left\">").append(esc(in.path().getFileName().toString())).append("</td><td><code>")
+                    .append(in.sha256()).append("</code></td></tr>");
         }
         h.append("</table>\n");
 
