@@ -582,57 +582,11 @@ public final class Cleaner {
         }
     }
 
-    /** Median of a[0..len) (the mean of the two middle values for even len); reorders a. */
-    static double median(double[] a, int len) {
-        int h = len >>> 1;
-        if (len <= 16) {
-            for (int q = 1; q < len; q++) {
-                double v = a[q];
-                int r = q - 1;
-                while (r >= 0 && a[r] > v) { a[r + 1] = a[r]; r--; }
-                a[r + 1] = v;
-            }
-            return (len & 1) == 1 ? a[h] : 0.5 * (a[h - 1] + a[h]);
-        }
-        double hi = select(a, len, h);
-        if ((len & 1) == 1) return hi;
-        double lo = a[0]; // after select, a[0..h) holds the values below a[h]: take their maximum
-        for (int q = 1; q < h; q++) if (a[q] > lo) lo = a[q];
-        return 0.5 * (lo + hi);
-    }
-
     /**
-     * The k-th smallest of a[0..len) by Hoare's selection (Hoare 1961, "Algorithm 65: Find",
-     * Commun. ACM 4:321) with a median-of-three pivot; leaves smaller values before index k.
+     * Median of a[0..len) (mean of the two middle values for an even count), reordering the
+     * slice: the gridder's quickselect, {@link org.leadline.surface.Select#median}.
      */
-    static double select(double[] a, int len, int k) {
-        int lo = 0, hi = len - 1;
-        while (hi > lo) {
-            int mid = (lo + hi) >>> 1;
-            if (a[mid] < a[lo]) swap(a, mid, lo);
-            if (a[hi] < a[lo]) swap(a, hi, lo);
-            if (a[hi] < a[mid]) swap(a, hi, mid);
-            double pivot = a[mid];
-            int i = lo, j = hi;
-            while (i <= j) {
-                while (a[i] < pivot) i++;
-                while (a[j] > pivot) j--;
-                if (i <= j) {
-                    swap(a, i, j);
-                    i++;
-                    j--;
-                }
-            }
-            if (k <= j) hi = j;
-            else if (k >= i) lo = i;
-            else return a[k];
-        }
-        return a[k];
-    }
-
-    private static void swap(double[] a, int i, int j) {
-        double t = a[i];
-        a[i] = a[j];
-        a[j] = t;
+    static double median(double[] a, int len) {
+        return org.leadline.surface.Select.median(a, 0, len);
     }
 }

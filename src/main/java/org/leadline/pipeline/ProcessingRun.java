@@ -154,7 +154,7 @@ public final class ProcessingRun {
 
         progress.stage("Comparing crosslines");
         List<String> crossNames = new ArrayList<>();
-        CrosslineResult cross = crosslines(s, acc, spec, projection, method, order, crossNames);
+        CrosslineResult cross = compareCrosslines(s, acc, set.crosslines(), spec, projection.crs(), method, order, crossNames);
         return new Result(in, s, projection, grid, spec, method, coverage, contours, selected, tpuSummary, compliance,
                 order, stats, journalEdits, cross, crossNames, cTransducer, warnings, started);
     }
@@ -250,9 +250,17 @@ public final class ProcessingRun {
         return m;
     }
 
-    private CrosslineResult crosslines(SoundingTable s, boolean[] acc, GridSpec spec, MapProjection projection,
-                                       Gridder.Method method, S44Order order, List<String> crossNames) {
-        List<String> names = project.settings().crosslines();
+    /**
+     * Crossline soundings against a surface of the main-scheme soundings (all accepted soundings
+     * not on a crossline), gridded on the same spec and by the same method; null when no crossline
+     * is named or none has an accepted sounding. Shared by the processing run and the workbench.
+     *
+     * @param names      line names run as crosslines (project setting)
+     * @param crossNames receives the names of the crosslines found in the table
+     */
+    public static CrosslineResult compareCrosslines(SoundingTable s, boolean[] acc, List<String> names, GridSpec spec,
+                                                    org.opengis.referencing.crs.CoordinateReferenceSystem crs,
+                                                    Gridder.Method method, S44Order order, List<String> crossNames) {
         if (names == null || names.isEmpty()) return null;
         boolean[] isCross = new boolean[s.lineNames().size()];
         for (int l = 0; l < isCross.length; l++) {
@@ -270,16 +278,14 @@ public final class ProcessingRun {
         }
         if (nc == 0) return null;
         double[] e = new double[nc], no = new double[nc], d = new double[nc];
-        int k = 0;
-        for (int i = 0; i < s.size; i++) {
+        for (int i = 0, k = 0; i < s.size; i++) {
             if (acc[i] && s.line[i] >= 0 && isCross[s.line[i]]) {
                 e[k] = s.easting[i];
                 no[k] = s.northing[i];
-                d[k] = s.depth[i];
-                k++;
+                d[k++] = s.depth[i];
             }
         }
-        Grid mainGrid = Gridder.build(spec, projection.crs(), s.easting, s.northing, s.depth, s.tvu, s.thu, main,
+        Grid mainGrid = Gridder.build(spec, crs, s.easting, s.northing, s.depth, s.tvu, s.thu, main,
                 method, org.leadline.surface.Cube.Parameters.defaults());
         float[] depth = mainGrid.layer(Grid.DEPTH);
         return CrosslineCheck.compare(e, no, d, (x, y) -> {

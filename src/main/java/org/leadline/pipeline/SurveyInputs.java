@@ -179,31 +179,7 @@ public final class SurveyInputs {
     /** The upper median of the finite values (element n/2 in sorted order), by selection: O(n), no full sort. */
     static double median(double[] a) {
         double[] f = Arrays.stream(a).filter(Double::isFinite).toArray();
-        if (f.length == 0) return Double.NaN;
-        int k = f.length / 2, lo = 0, hi = f.length - 1;
-        // Hoare's selection (Hoare 1961, Commun. ACM 4:321) with a median-of-three pivot
-        while (hi > lo) {
-            int mid = (lo + hi) >>> 1;
-            if (f[mid] < f[lo]) swap(f, mid, lo);
-            if (f[hi] < f[lo]) swap(f, hi, lo);
-            if (f[hi] < f[mid]) swap(f, hi, mid);
-            double pivot = f[mid];
-            int i = lo, j = hi;
-            while (i <= j) {
-                while (f[i] < pivot) i++;
-                while (f[j] > pivot) j--;
-                if (i <= j) swap(f, i++, j--);
-            }
-            if (k <= j) hi = j;
-            else if (k >= i) lo = i;
-            else return f[k];
-        }
-        return f[k];
-    }
-
-    private static void swap(double[] f, int i, int j) {
-        double t = f[i];
-        f[i] = f[j];
-        f[j] = t;
+        // upper middle for an even count: a value that occurs in the data (a latitude of a ping)
+        return f.length == 0 ? Double.NaN : org.leadline.surface.Select.kth(f, 0, f.length, f.length / 2);
     }
 }

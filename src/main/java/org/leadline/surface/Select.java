@@ -3,9 +3,9 @@ package org.leadline.surface;
 /**
  * In-place selection on a slice of a double array (Hoare's quickselect with median-of-three
  * pivots, C. A. R. Hoare 1961, "Algorithm 65: find", CACM 4(7)). Expected linear time; the slice
- * is reordered. Package-private helper of the gridder.
+ * is reordered. Used by the gridder and by the cleaning filters.
  */
-final class Select {
+public final class Select {
     private Select() {}
 
     /**
@@ -13,7 +13,7 @@ final class Select {
      * values for an even count (the definition GMT's blockmedian uses; checked in
      * GridderGmtReferenceTest). Reorders the slice.
      */
-    static double median(double[] a, int from, int to) {
+    public static double median(double[] a, int from, int to) {
         int n = to - from;
         if (n <= 0) return Double.NaN;
         int mid = from + n / 2;
@@ -26,7 +26,7 @@ final class Select {
     }
 
     /** Places the k-th smallest of a[from, to) at a[k] (from <= k < to) and returns it. */
-    static double kth(double[] a, int from, int to, int k) {
+    public static double kth(double[] a, int from, int to, int k) {
         int lo = from, hi = to - 1;
         while (hi > lo) {
             int m = (lo + hi) >>> 1;

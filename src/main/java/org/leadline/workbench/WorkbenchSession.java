@@ -15,7 +15,6 @@ import org.leadline.survey.Project;
 import org.leadline.survey.SoundingTable;
 import org.leadline.uncertainty.Compliance;
 import org.leadline.uncertainty.ComplianceSummary;
-import org.leadline.uncertainty.CrosslineCheck;
 import org.leadline.uncertainty.CrosslineResult;
 import org.leadline.uncertainty.S44Order;
 
@@ -248,7 +247,8 @@ public final class WorkbenchSession implements Closeable {
         Grid grid = Gridder.build(spec, result.projection().crs(), s.easting, s.northing, s.depth, s.tvu, s.thu, acc, m,
                 Cube.Parameters.defaults());
         List<String> names = new ArrayList<>();
-        CrosslineResult cr = crosslines(spec, acc, names);
+        CrosslineResult cr = ProcessingRun.compareCrosslines(s, acc, project.settings().crosslines(), spec,
+                result.projection().crs(), m, result.order(), names);
         // the S-44 compliance reads the statuses in the table, which the editing thread owns:
         // it is evaluated when the surface is installed (setSurface), one cheap pass
         return new SurfaceState(grid, n, SurfaceState.meanDepth(grid), null, cr, names);
@@ -271,47 +271,6 @@ public final class WorkbenchSession implements Closeable {
         int n = 0;
         for (boolean b : acc) if (b) n++;
         return n;
-    }
-
-    /**
-     * Crossline soundings against a surface of the main-scheme soundings, as a processing run
-     * compares them (ProcessingRun's crossline step; repeated here because that step is private).
-     */
-    private CrosslineResult crosslines(GridSpec spec, boolean[] acc, List<String> crossNames) {
-        SoundingTable s = soundings;
-        List<String> names = project.settings().crosslines();
-        if (names == null || names.isEmpty()) return null;
-        boolean[] isCross = new boolean[s.lineNames().size()];
-        for (int l = 0; l < isCross.length; l++) {
-            if (names.contains(s.lineNames().get(l))) {
-                isCross[l] = true;
-                crossNames.add(s.lineNames().get(l));
-            }
-        }
-        boolean[] main = new boolean[s.size];
-        int nc = 0;
-        for (int i = 0; i < s.size; i++) {
-            boolean c = s.line[i] >= 0 && isCross[s.line[i]];
-            main[i] = acc[i] && !c;
-            if (acc[i] && c) nc++;
-        }
-        if (nc == 0) return null;
-        double[] e = new double[nc], no = new double[nc], d = new double[nc];
-        for (int i = 0, k = 0; i < s.size; i++) {
-            if (acc[i] && s.line[i] >= 0 && isCross[s.line[i]]) {
-                e[k] = s.easting[i];
-                no[k] = s.northing[i];
-                d[k++] = s.depth[i];
-            }
-        }
-        Grid mainGrid = Gridder.build(spec, result.projection().crs(), s.easting, s.northing, s.depth, s.tvu, s.thu,
-                main, result.method(), Cube.Parameters.defaults());
-        float[] depth = mainGrid.layer(Grid.DEPTH);
-        S44Order order = result.order();
-        return CrosslineCheck.compare(e, no, d, (x, y) -> {
-            int c = mainGrid.col(x), r = mainGrid.row(y);
-            return c < 0 || r < 0 ? Double.NaN : depth[r * mainGrid.nx + c];
-        }, order::tvuLimit);
     }
 
     /** Releases the journal's lock. Every edit is already on disk. */
