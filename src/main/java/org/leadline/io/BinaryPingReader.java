@@ -272,4 +272,12 @@ public final class BinaryPingReader {
         for (byte x : b) sb.append(x >= 32 && x < 127 ? (char) x : '?');
         return sb.append('\'').toString();
     }
+
+    /**
+     * Reads the file a chunk at a time ({@link PingChunks}); same rows, values and errors as {@link #read}.
+     * For now the whole table is read and served in slices.
+     */
+    public static PingChunks chunks(Path file, boolean separateNavigation, int targetRows) {
+        return new WholeTableChunks(read(file, separateNavigation), targetRows);
+    }
 }

@@ -147,4 +147,12 @@ public final class PingCsvReader {
         }
         return v;
     }
+
+    /**
+     * Reads the file a chunk at a time ({@link PingChunks}); same rows, values and errors as {@link #read}.
+     * For now the whole table is read and served in slices.
+     */
+    public static PingChunks chunks(Path file, boolean separateNavigation, int targetRows) {
+        return new WholeTableChunks(read(file, separateNavigation), targetRows);
+    }
 }

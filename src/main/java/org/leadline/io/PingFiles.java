@@ -18,4 +18,15 @@ public final class PingFiles {
         return BinaryPingReader.isBinary(file) ? BinaryPingReader.read(file, separateNavigation)
                 : PingCsvReader.read(file, separateNavigation);
     }
+
+    /**
+     * Opens the file for reading chunk by chunk (streamed processing); the rows, values, checks
+     * and errors are those of {@link #read}.
+     *
+     * @param targetRows rows per chunk, about (a chunk ends at a ping boundary)
+     */
+    public static PingChunks chunks(Path file, boolean separateNavigation, int targetRows) throws java.io.IOException {
+        return BinaryPingReader.isBinary(file) ? BinaryPingReader.chunks(file, separateNavigation, targetRows)
+                : PingCsvReader.chunks(file, separateNavigation, targetRows);
+    }
 }

@@ -78,6 +78,17 @@ public final class PingTable {
         return new PingTable(size, d, i, lineNames);
     }
 
+    /** Rows [from, to) as a new table (columns copied) with the same line names and ids. */
+    public PingTable slice(int from, int to) {
+        double[][] d = {time, lat, lon, twtt, depth, angle, heading, heave, roll, pitch};
+        int[][] in = {line, beam, quality};
+        double[][] dc = new double[d.length][];
+        int[][] ic = new int[in.length][];
+        for (int k = 0; k < d.length; k++) dc[k] = Arrays.copyOfRange(d[k], from, to);
+        for (int k = 0; k < in.length; k++) ic[k] = Arrays.copyOfRange(in[k], from, to);
+        return new PingTable(to - from, dc, ic, lineNames);
+    }
+
     public List<String> lineNames() { return lineNames; }
 
     /** Name of the survey line of ping i ("" when none was given). */
