@@ -63,14 +63,68 @@ public final class Cleaner {
         }
         int before = s.countAccepted();
         int[] counts = new int[256];
-        if (cfg.enabled(Filter.QUALITY) && quality != null) qualityGate(s, quality, cfg.minQuality(), counts);
-        if (cfg.enabled(Filter.DEPTH_GATE)) depthGate(s, cfg.minDepth(), cfg.maxDepth(), counts);
-        int untestedSpike = 0, untestedSurface = 0;
-        if (cfg.enabled(Filter.SPIKE)) untestedSpike = spikeFilter(s, cfg, counts);
-        if (cfg.enabled(Filter.SURFACE)) untestedSurface = surfaceFilter(s, cfg, counts);
+        gates(s, quality, cfg, counts);
+        boolean[] spike = new boolean[s.size];
+        int untestedSpike = cfg.enabled(Filter.SPIKE) ? spikeFlags(s, cfg, spike) : 0;
+        int untestedSurface = spatial(s, spike, cfg, counts, null);
         Map<Reason, Integer> byReason = new EnumMap<>(Reason.class);
         for (Reason r : Reason.values()) if (counts[r.code & 0xff] > 0) byReason.put(r, counts[r.code & 0xff]);
         return new CleaningStats(s.size, before, s.countAccepted(), byReason, untestedSpike, untestedSurface);
+    }
+
+    /**
+     * The per-sounding gates of {@link #clean}: sounder quality, then depth (in place).
+     * A day processed in tiles runs them chunk by chunk.
+     *
+     * @param counts rejections per reason code, added to
+     */
+    public static void gates(SoundingTable s, int[] quality, CleaningSettings cfg, int[] counts) {
+        if (cfg.enabled(Filter.QUALITY) && quality != null) qualityGate(s, quality, cfg.minQuality(), counts);
+        if (cfg.enabled(Filter.DEPTH_GATE)) depthGate(s, cfg.minDepth(), cfg.maxDepth(), counts);
+    }
+
+    /**
+     * The along-track spike test of {@link #clean} (Hampel filter per line and beam series), flags
+     * only: nothing is rejected until {@link #spatial} has looked for other passes that confirm a
+     * flagged sounding. Series never cross lines, so a chunk of whole lines gives the same flags as
+     * the whole day.
+     *
+     * @param spike receives true for each flagged sounding
+     * @return accepted soundings that could not be tested (series too short)
+     */
+    public static int spikeFlags(SoundingTable s, CleaningSettings cfg, boolean[] spike) {
+        return spikeFilter(s, cfg, spike);
+    }
+
+    /**
+     * The spatial part of {@link #clean}: feature protection of the spike flags, the spike
+     * rejections, then the surface filter with its own feature protection. Every decision about a
+     * sounding looks only at soundings within {@link #spatialReach} of it, so a tile processed
+     * with a margin of that width around it gets the same result for its own soundings as the
+     * whole day.
+     *
+     * @param spike  flags from {@link #spikeFlags} (cleared where another pass confirms them)
+     * @param counts rejections per reason code, added to
+     * @param core   rows whose untested soundings are counted (null: all)
+     * @return accepted soundings of the core the surface filter could not test
+     */
+    public static int spatial(SoundingTable s, boolean[] spike, CleaningSettings cfg, int[] counts, boolean[] core) {
+        if (cfg.enabled(Filter.SPIKE)) {
+            restoreSupported(s, spike, cfg.spikeFloor(), cfg.spikeKTvu());
+            for (int i = 0; i < s.size; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
+        }
+        return cfg.enabled(Filter.SURFACE) ? surfaceFilter(s, cfg, counts, core) : 0;
+    }
+
+    /**
+     * Distance, m, along each axis, within which soundings can change the outcome of
+     * {@link #spatial} for a sounding: the surface filter reads its own cell and the 8 around it
+     * (every point of them lies within 2 cells along each axis), and the spike status of those
+     * soundings depends on witnesses within {@link #SUPPORT_RADIUS}; the surface filter's own
+     * witnesses lie within that radius and their spike status looks as far again.
+     */
+    public static double spatialReach(CleaningSettings cfg) {
+        return Math.max(2 * cfg.surfaceCell() + SUPPORT_RADIUS, 2 * SUPPORT_RADIUS);
     }
 
     private static void reject(SoundingTable s, int i, Reason r, int[] counts) {
@@ -102,7 +156,7 @@ public final class Cleaner {
     // ------------------------------------------------------------------ along-track spike filter
 
     /** Returns the number of accepted soundings that could not be tested (series too short). */
-    static int spikeFilter(SoundingTable s, CleaningSettings cfg, int[] counts) {
+    static int spikeFilter(SoundingTable s, CleaningSettings cfg, boolean[] spike) {
         int n = s.size;
         int m = 0;
         int[] cand = new int[n];
@@ -126,15 +180,12 @@ public final class Cleaner {
         gid = null;
         cand = null;
 
-        boolean[] spike = new boolean[n];
         // series are independent: contiguous runs of series in parallel tasks, each writing only its
         // own soundings' flags, so the result does not depend on the number of threads
         int[] taskStart = tasks(start, groups, m);
         final int[] ord = order;
         int untested = java.util.stream.IntStream.range(0, taskStart.length - 1).parallel()
                 .map(t -> spikeSeries(s, cfg, ord, start, taskStart[t], taskStart[t + 1], spike)).sum();
-        restoreSupported(s, spike, cfg.spikeFloor(), cfg.spikeKTvu());
-        for (int i = 0; i < n; i++) if (spike[i]) reject(s, i, Reason.SPIKE, counts);
         return untested;
     }
 
@@ -283,7 +334,7 @@ public final class Cleaner {
     // ------------------------------------------------------------------ surface filter
 
     /** Returns the number of accepted soundings that could not be tested. */
-    static int surfaceFilter(SoundingTable s, CleaningSettings cfg, int[] counts) {
+    static int surfaceFilter(SoundingTable s, CleaningSettings cfg, int[] counts, boolean[] core) {
         int n = s.size;
         double cell = cfg.surfaceCell();
         int m = 0;
@@ -292,7 +343,7 @@ public final class Cleaner {
         for (int i = 0; i < n; i++) {
             if (s.status[i] != Status.ACCEPTED.code) continue;
             if (Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i])) cand[m++] = i;
-            else untested++;
+            else if (core == null || core[i]) untested++;
         }
         LongIntMap ids = new LongIntMap(Math.max(16, m / 8));
         int[] cid = new int[m];
@@ -369,7 +420,7 @@ public final class Cleaner {
                 }
                 int from = start[c], to = start[c + 1];
                 if (np == 0 || !Double.isFinite(ct[c])) {
-                    notTested += to - from;
+                    for (int q = from; q < to; q++) if (core == null || core[ord[q]]) notTested++;
                     continue;
                 }
                 fitPlane(px, py, pz, np, kS * ct[c], w, plane);
@@ -377,7 +428,7 @@ public final class Cleaner {
                 for (int q = from; q < to; q++) {
                     int i = ord[q];
                     if (!Double.isFinite(s.tvu[i])) {
-                        notTested++;
+                        if (core == null || core[i]) notTested++;
                         continue;
                     }
                     double surf = a + bx * (s.easting[i] - e0) + by * (s.northing[i] - n0);

@@ -24,11 +24,12 @@ class CleanerBenchmarkTest {
         long t0 = cpu();
         Cleaner.depthGate(sv.table, cfg.minDepth(), cfg.maxDepth(), counts);
         long ta = cpu();
-        Cleaner.spikeFilter(sv.table, cfg, counts);
+        boolean[] spike = new boolean[sv.table.size];
+        Cleaner.spikeFlags(sv.table, cfg, spike);
         long tb = cpu();
-        Cleaner.surfaceFilter(sv.table, cfg, counts);
+        Cleaner.spatial(sv.table, spike, cfg, counts, null);
         long t1 = cpu();
-        System.out.printf("benchmark (CPU time): gates %.2f s, spike filter %.2f s, surface filter %.2f s%n",
+        System.out.printf("benchmark (CPU time): gates %.2f s, spike flags %.2f s, spike confirmation and surface filter %.2f s%n",
                 (ta - t0) / 1e9, (tb - ta) / 1e9, (t1 - tb) / 1e9);
         java.util.Map<org.leadline.survey.SoundingTable.Reason, Integer> st = new java.util.EnumMap<>(org.leadline.survey.SoundingTable.Reason.class);
         for (var reason : org.leadline.survey.SoundingTable.Reason.values()) if (counts[reason.code] > 0) st.put(reason, counts[reason.code]);
