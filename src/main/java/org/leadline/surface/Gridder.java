@@ -126,10 +126,56 @@ public final class Gridder {
             throw new IllegalArgumentException("surface method " + m.label() + " needs each sounding's TVU, found none");
         }
         Grid g = spec.newGrid(crs);
-        int nx = g.nx, cells = g.cells();
+        int cells = g.cells();
+        int[] cellOf = m == Method.CUBE ? new int[size] : null;
+        float[][] layers = cells(g, 0, 0, g.nx, g.ny, e, n, depth, tvu, accepted, m, cellOf);
+        float[] dep = layers[0], unc = layers[1], cnt = layers[2], sdv = layers[3];
 
+        if (m == Method.CUBE) {
+            Cube.Result r = Cube.estimate(g, e, n, depth, tvu, thu, cellOf, cubeP);
+            float[] hyp = r.hypotheses();
+            for (int k = 0; k < cells; k++) {
+                if (cnt[k] > 0) {
+                    dep[k] = (float) r.depth()[k];
+                    unc[k] = (float) r.uncertainty()[k];
+                } else {
+                    hyp[k] = 0;   // a node of an empty cell reports nothing (see Cube: no filling of holidays)
+                }
+            }
+            g.putLayer(Grid.DEPTH, dep).putLayer(Grid.UNCERTAINTY, unc).putLayer(Grid.COUNT, cnt)
+                    .putLayer(Grid.STDDEV, sdv).putLayer(Cube.HYPOTHESES, hyp);
+            return g;
+        }
+        return g.putLayer(Grid.DEPTH, dep).putLayer(Grid.UNCERTAINTY, unc).putLayer(Grid.COUNT, cnt)
+                .putLayer(Grid.STDDEV, sdv);
+    }
+
+    /**
+     * One window of a grid, for surfaces built tile by tile (days too large for memory): the cells
+     * of columns c0..c0+wnx-1 and rows r0..r0+wny-1 of {@code g}, from the soundings given that fall
+     * in them (others are ignored). Each cell's value is exactly what {@link #build} gives for it
+     * when the soundings given include every sounding of that cell, in the same order.
+     *
+     * @return the layers DEPTH, UNCERTAINTY, COUNT, STDDEV, each wnx * wny values, row by row
+     * @throws IllegalArgumentException for CUBE, whose nodes look beyond their cell
+     */
+    public static float[][] window(Grid g, int c0, int r0, int wnx, int wny, double[] e, double[] n, double[] depth,
+                                   double[] tvu, boolean[] accepted, Method m) {
+        if (m == Method.CUBE) throw new IllegalArgumentException("surface method cube cannot be built window by window");
+        if ((m == Method.WEIGHTED) && tvu == null) {
+            throw new IllegalArgumentException("surface method " + m.label() + " needs each sounding's TVU, found none");
+        }
+        return cells(g, c0, r0, wnx, wny, e, n, depth, tvu, accepted, m, null);
+    }
+
+    /** Bins the usable soundings into the window's cells and computes every cell (see the class comment). */
+    private static float[][] cells(Grid g, int c0, int r0, int wnx, int wny, double[] e, double[] n, double[] depth,
+                                   double[] tvu, boolean[] accepted, Method m, int[] cellOfOut) {
+        int size = depth.length;
+        boolean needTvu = m == Method.WEIGHTED || m == Method.CUBE;
+        int cells = wnx * wny;
         // pass 1: cell of each usable sounding, and counts per cell
-        int[] cellOf = new int[size];
+        int[] cellOf = cellOfOut != null ? cellOfOut : new int[size];
         int[] start = new int[cells + 1];
         int noTvu = 0;
         for (int i = 0; i < size; i++) {
@@ -141,9 +187,9 @@ public final class Gridder {
                 noTvu++;
                 continue;
             }
-            int c = g.col(e[i]), r = g.row(n[i]);
-            if (c < 0 || r < 0) continue;
-            int k = r * nx + c;
+            int c = g.col(e[i]) - c0, r = g.row(n[i]) - r0;
+            if (c < 0 || r < 0 || c >= wnx || r >= wny || c + c0 < 0 || r + r0 < 0) continue;
+            int k = r * wnx + c;
             cellOf[i] = k;
             start[k + 1]++;
         }
@@ -168,29 +214,12 @@ public final class Gridder {
         fill = null;
 
         float[] dep = new float[cells], unc = new float[cells], cnt = new float[cells], sdv = new float[cells];
-        IntStream.range(0, g.ny).parallel().forEach(row -> {
-            for (int k = row * nx, end = k + nx; k < end; k++) {
+        IntStream.range(0, wny).parallel().forEach(row -> {
+            for (int k = row * wnx, end = k + wnx; k < end; k++) {
                 cellStats(m, zs, ts, start[k], start[k + 1], k, dep, unc, cnt, sdv);
             }
         });
-
-        if (m == Method.CUBE) {
-            Cube.Result r = Cube.estimate(g, e, n, depth, tvu, thu, cellOf, cubeP);
-            float[] hyp = r.hypotheses();
-            for (int k = 0; k < cells; k++) {
-                if (cnt[k] > 0) {
-                    dep[k] = (float) r.depth()[k];
-                    unc[k] = (float) r.uncertainty()[k];
-                } else {
-                    hyp[k] = 0;   // a node of an empty cell reports nothing (see Cube: no filling of holidays)
-                }
-            }
-            g.putLayer(Grid.DEPTH, dep).putLayer(Grid.UNCERTAINTY, unc).putLayer(Grid.COUNT, cnt)
-                    .putLayer(Grid.STDDEV, sdv).putLayer(Cube.HYPOTHESES, hyp);
-            return g;
-        }
-        return g.putLayer(Grid.DEPTH, dep).putLayer(Grid.UNCERTAINTY, unc).putLayer(Grid.COUNT, cnt)
-                .putLayer(Grid.STDDEV, sdv);
+        return new float[][] {dep, unc, cnt, sdv};
     }
 
     /** One cell: the slice [s0, s1) of zs/ts holds its soundings in index order. */
