@@ -66,43 +66,69 @@ public final class Compliance {
             throw new IllegalArgumentException("sounding table: expected " + flags.length + " soundings, found "
                     + soundings.size);
         }
-        int nb = bandStarts.length;
-        for (int k = 1; k < nb; k++) {
-            if (!(bandStarts[k] > bandStarts[k - 1])) {
-                throw new IllegalArgumentException("depth bands: expected increasing edges, found " + bandStarts[k - 1]
-                        + " then " + bandStarts[k]);
+        return new Tally(order, bandStarts).add(soundings, this).summary();
+    }
+
+    /**
+     * Running sums of {@link #summary}: add the chunks of a day in row order (each with its own
+     * {@link #evaluate}), then ask for the summary; the same sums in the same order as for the whole table.
+     */
+    public static final class Tally {
+        private final S44Order order;
+        private final double[] bandStarts;
+        private final int nb;
+        private final int[] n, nTvu, nThu, nBoth;
+        private final double[] sTvu, sThu, maxRatio;
+
+        public Tally(S44Order order, double[] bandStarts) {
+            this.order = order;
+            this.bandStarts = bandStarts.clone();
+            nb = bandStarts.length;
+            for (int k = 1; k < nb; k++) {
+                if (!(bandStarts[k] > bandStarts[k - 1])) {
+                    throw new IllegalArgumentException("depth bands: expected increasing edges, found " + bandStarts[k - 1]
+                            + " then " + bandStarts[k]);
+                }
             }
+            n = new int[nb]; nTvu = new int[nb]; nThu = new int[nb]; nBoth = new int[nb];
+            sTvu = new double[nb]; sThu = new double[nb]; maxRatio = new double[nb];
         }
-        int[] n = new int[nb], nTvu = new int[nb], nThu = new int[nb], nBoth = new int[nb];
-        double[] sTvu = new double[nb], sThu = new double[nb], maxRatio = new double[nb];
-        for (int i = 0; i < soundings.size; i++) {
-            double d = soundings.depth[i];
-            if (!soundings.accepted(i) || !Double.isFinite(d)) continue;
-            int k = nb - 1;
-            while (k > 0 && d < bandStarts[k]) k--;
-            n[k]++;
-            if (tvuOk(i)) nTvu[k]++;
-            if (thuOk(i)) nThu[k]++;
-            if (bothOk(i)) nBoth[k]++;
-            sTvu[k] += soundings.tvu[i];
-            sThu[k] += soundings.thu[i];
-            if (Double.isFinite(soundings.tvu[i])) {
-                maxRatio[k] = Math.max(maxRatio[k], soundings.tvu[i] / order.tvuLimit(d));
+
+        /** Adds the accepted soundings with a finite reduced depth of a table and its compliance flags. */
+        public Tally add(SoundingTable soundings, Compliance c) {
+            for (int i = 0; i < soundings.size; i++) {
+                double d = soundings.depth[i];
+                if (!soundings.accepted(i) || !Double.isFinite(d)) continue;
+                int k = nb - 1;
+                while (k > 0 && d < bandStarts[k]) k--;
+                n[k]++;
+                if (c.tvuOk(i)) nTvu[k]++;
+                if (c.thuOk(i)) nThu[k]++;
+                if (c.bothOk(i)) nBoth[k]++;
+                sTvu[k] += soundings.tvu[i];
+                sThu[k] += soundings.thu[i];
+                if (Double.isFinite(soundings.tvu[i])) {
+                    maxRatio[k] = Math.max(maxRatio[k], soundings.tvu[i] / order.tvuLimit(d));
+                }
             }
+            return this;
         }
-        List<ComplianceSummary.Band> bands = new ArrayList<>();
-        int total = 0, tTvu = 0, tThu = 0, tBoth = 0;
-        for (int k = 0; k < nb; k++) {
-            double to = k + 1 < nb ? bandStarts[k + 1] : Double.POSITIVE_INFINITY;
-            bands.add(new ComplianceSummary.Band(bandStarts[k], to, n[k], pct(nTvu[k], n[k]), pct(nThu[k], n[k]),
-                    pct(nBoth[k], n[k]), n[k] == 0 ? Double.NaN : sTvu[k] / n[k],
-                    n[k] == 0 ? Double.NaN : sThu[k] / n[k], n[k] == 0 ? Double.NaN : maxRatio[k]));
-            total += n[k];
-            tTvu += nTvu[k];
-            tThu += nThu[k];
-            tBoth += nBoth[k];
+
+        public ComplianceSummary summary() {
+            List<ComplianceSummary.Band> bands = new ArrayList<>();
+            int total = 0, tTvu = 0, tThu = 0, tBoth = 0;
+            for (int k = 0; k < nb; k++) {
+                double to = k + 1 < nb ? bandStarts[k + 1] : Double.POSITIVE_INFINITY;
+                bands.add(new ComplianceSummary.Band(bandStarts[k], to, n[k], pct(nTvu[k], n[k]), pct(nThu[k], n[k]),
+                        pct(nBoth[k], n[k]), n[k] == 0 ? Double.NaN : sTvu[k] / n[k],
+                        n[k] == 0 ? Double.NaN : sThu[k] / n[k], n[k] == 0 ? Double.NaN : maxRatio[k]));
+                total += n[k];
+                tTvu += nTvu[k];
+                tThu += nThu[k];
+                tBoth += nBoth[k];
+            }
+            return new ComplianceSummary(order, total, pct(tTvu, total), pct(tThu, total), pct(tBoth, total), bands);
         }
-        return new ComplianceSummary(order, total, pct(tTvu, total), pct(tThu, total), pct(tBoth, total), bands);
     }
 
     private static double pct(int k, int n) {

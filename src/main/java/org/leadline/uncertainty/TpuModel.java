@@ -149,40 +149,62 @@ public final class TpuModel {
      */
     public TpuSummary summarize(SoundingTable soundings, double[] heave, double[] soundSpeedAtTransducer,
                                 double[] tideZoneSigma) {
-        checkLength(soundings, heave, "heave");
-        checkLength(soundings, soundSpeedAtTransducer, "soundSpeedAtTransducer");
-        checkLength(soundings, tideZoneSigma, "tideZoneSigma");
-        double[] v = new double[N], a = new double[N], c = new double[N];
-        double[] sv = new double[N], sh = new double[N];
-        int count = 0;
-        double sumTvu = 0, maxTvu = 0, sumThu = 0, maxThu = 0;
-        for (int i = 0; i < soundings.size; i++) {
-            if (!soundings.accepted(i)) continue;
-            double z = rayDepth(soundings, i, heave);
-            if (Double.isNaN(z)) continue;
-            terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
-                    soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
-            for (int k = 0; k < N; k++) {
-                sv[k] += v[k] * v[k];
-                sh[k] += a[k] * a[k] + c[k] * c[k];
+        return tally().add(soundings, heave, soundSpeedAtTransducer, tideZoneSigma).summary();
+    }
+
+    /** An empty running {@link #summarize}: add tables (chunks of a day, in row order), then ask for the summary. */
+    public Tally tally() { return new Tally(); }
+
+    /**
+     * Running sums of {@link #summarize}. Adding the chunks of a table in row order gives exactly
+     * the summary of the whole table (the same sums in the same order).
+     */
+    public final class Tally {
+        private final double[] v = new double[N], a = new double[N], c = new double[N];
+        private final double[] sv = new double[N], sh = new double[N];
+        private long count;
+        private double sumTvu, maxTvu, sumThu, maxThu;
+
+        private Tally() {}
+
+        /** Adds the accepted soundings of a table (columns as for {@link #summarize}). */
+        public Tally add(SoundingTable soundings, double[] heave, double[] soundSpeedAtTransducer, double[] tideZoneSigma) {
+            checkLength(soundings, heave, "heave");
+            checkLength(soundings, soundSpeedAtTransducer, "soundSpeedAtTransducer");
+            checkLength(soundings, tideZoneSigma, "tideZoneSigma");
+            for (int i = 0; i < soundings.size; i++) {
+                if (!soundings.accepted(i)) continue;
+                double z = rayDepth(soundings, i, heave);
+                if (Double.isNaN(z)) continue;
+                terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
+                        soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
+                for (int k = 0; k < N; k++) {
+                    sv[k] += v[k] * v[k];
+                    sh[k] += a[k] * a[k] + c[k] * c[k];
+                }
+                double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
+                double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
+                sumTvu += tvu;
+                sumThu += thu;
+                maxTvu = Math.max(maxTvu, tvu);
+                maxThu = Math.max(maxThu, thu);
+                count++;
             }
-            double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
-            double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
-            sumTvu += tvu;
-            sumThu += thu;
-            maxTvu = Math.max(maxTvu, tvu);
-            maxThu = Math.max(maxThu, thu);
-            count++;
+            return this;
         }
-        List<TpuSummary.Entry> entries = new ArrayList<>();
-        for (TpuComponent comp : TpuComponent.values()) {
-            int k = comp.ordinal();
-            entries.add(new TpuSummary.Entry(comp, count == 0 ? Double.NaN : Math.sqrt(sv[k] / count),
-                    count == 0 ? Double.NaN : Math.sqrt(sh[k] / count)));
+
+        /** The summary of everything added. */
+        public TpuSummary summary() {
+            List<TpuSummary.Entry> entries = new ArrayList<>();
+            for (TpuComponent comp : TpuComponent.values()) {
+                int k = comp.ordinal();
+                entries.add(new TpuSummary.Entry(comp, count == 0 ? Double.NaN : Math.sqrt(sv[k] / count),
+                        count == 0 ? Double.NaN : Math.sqrt(sh[k] / count)));
+            }
+            return new TpuSummary((int) Math.min(Integer.MAX_VALUE, count), entries, count == 0 ? Double.NaN : sumTvu / count,
+                    count == 0 ? Double.NaN : maxTvu, count == 0 ? Double.NaN : sumThu / count,
+                    count == 0 ? Double.NaN : maxThu);
         }
-        return new TpuSummary(count, entries, count == 0 ? Double.NaN : sumTvu / count,
-                count == 0 ? Double.NaN : maxTvu, count == 0 ? Double.NaN : sumThu / count,
-                count == 0 ? Double.NaN : maxThu);
     }
 
     /** Depth of the footprint below the transducer, m: surfaceDepth - (draft + settlement - heave). */
