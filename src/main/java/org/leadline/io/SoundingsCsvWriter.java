@@ -34,14 +34,36 @@ public final class SoundingsCsvWriter {
 
     /** Writes the table to {@code out} (the caller decides about atomic placement). */
     public static void write(SoundingTable s, Path out) throws IOException {
-        byte[][] lines = new byte[s.lineNames().size()][];
-        for (int l = 0; l < lines.length; l++) lines[l] = field(s.lineNames().get(l)).getBytes(StandardCharsets.UTF_8);
-        byte[][] status = {SoundingTable.Status.of((byte) 0).label.getBytes(StandardCharsets.UTF_8),
+        try (Appender w = open(out)) {
+            w.append(s);
+        }
+    }
+
+    /** Opens {@code out} for a table written chunk by chunk (a day processed in tiles). */
+    public static Appender open(Path out) throws IOException {
+        return new Appender(Files.newOutputStream(out));
+    }
+
+    /**
+     * soundings.csv written chunk after chunk: the header, then each appended table's rows in
+     * order. The bytes equal {@link #write} of the concatenated table (rows are formatted one by one).
+     */
+    public static final class Appender implements AutoCloseable {
+        private final OutputStream os;
+        private final byte[][] status = {SoundingTable.Status.of((byte) 0).label.getBytes(StandardCharsets.UTF_8),
                 SoundingTable.Status.of((byte) 1).label.getBytes(StandardCharsets.UTF_8)};
-        byte[][] reason = new byte[256][];
-        for (SoundingTable.Reason r : SoundingTable.Reason.values()) reason[r.code & 0xff] = r.label.getBytes(StandardCharsets.UTF_8);
-        try (OutputStream os = Files.newOutputStream(out)) {
+        private final byte[][] reason = new byte[256][];
+
+        private Appender(OutputStream os) throws IOException {
+            this.os = os;
+            for (SoundingTable.Reason r : SoundingTable.Reason.values()) reason[r.code & 0xff] = r.label.getBytes(StandardCharsets.UTF_8);
             os.write((HEADER + "\n").getBytes(StandardCharsets.US_ASCII));
+        }
+
+        /** Appends every row of {@code s}. */
+        public void append(SoundingTable s) throws IOException {
+            byte[][] lines = new byte[s.lineNames().size()][];
+            for (int l = 0; l < lines.length; l++) lines[l] = field(s.lineNames().get(l)).getBytes(StandardCharsets.UTF_8);
             int blocks = (s.size + BLOCK_ROWS - 1) / BLOCK_ROWS;
             for (int b0 = 0; b0 < blocks; b0 += BATCH_BLOCKS) {
                 int first = b0, count = Math.min(BATCH_BLOCKS, blocks - b0);
@@ -51,6 +73,9 @@ public final class SoundingsCsvWriter {
                 for (Ascii t : text) os.write(t.b, 0, t.n);
             }
         }
+
+        @Override
+        public void close() throws IOException { os.close(); }
     }
 
     private static String field(String v) {
