@@ -41,9 +41,14 @@ public final class Plausibility {
                 if (Math.abs(h) > Math.abs(worst)) worst = h;
             }
         }
+        return heave(worst, count, heave.length);
+    }
+
+    /** The heave warning for {@code count} of {@code total} pings beyond {@link #MAX_HEAVE_M}, the worst being {@code worst}; null for none. */
+    static String heave(double worst, long count, long total) {
         if (count == 0) return null;
         return String.format(Locale.ROOT, "heave of %.2f m at %d of %d pings (more than %.0f m is implausible for a"
-                + " survey launch: heave in centimetres, or another vessel's record?)", worst, count, heave.length, MAX_HEAVE_M);
+                + " survey launch: heave in centimetres, or another vessel's record?)", worst, count, total, MAX_HEAVE_M);
     }
 
     /**
@@ -82,8 +87,14 @@ public final class Plausibility {
     /** Every finding for a loaded survey. */
     static List<String> check(double[] heave, List<Path> castFiles, List<DerivedProfile> profiles, double draft,
                               double setSpeed) {
+        return check(heave(heave), castFiles, profiles, draft, setSpeed);
+    }
+
+    /** As {@link #check(double[], List, List, double, double)}, the heave warning already made (or null). */
+    static List<String> check(String heaveWarning, List<Path> castFiles, List<DerivedProfile> profiles, double draft,
+                              double setSpeed) {
         List<String> out = new ArrayList<>();
-        String h = heave(heave);
+        String h = heaveWarning;
         if (h != null) out.add(h);
         for (int k = 0; k < profiles.size(); k++) {
             String c = castAgainstSetSpeed(castFiles.get(k), profiles.get(k), draft, setSpeed);

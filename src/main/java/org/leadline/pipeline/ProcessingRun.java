@@ -79,11 +79,11 @@ public final class ProcessingRun {
         Reducer.CastChoice choice = chooseCasts(in, profiles.size());
 
         progress.stage("Building ray tables");
-        Reducer.BeamTracer[] tracers = buildTracers(in, profiles);
+        Reducer.BeamTracer[] tracers = buildTracers(in.day, in.vessel, profiles);
         checkCancel();
 
         progress.stage("Reducing soundings");
-        MapProjection projection = configured("crs", () -> MapProjection.parse(set.crs(), in.lat, in.lon));
+        MapProjection projection = configured("crs", () -> MapProjection.parse(set.crs(), in.day.latitudes(), in.day.longitudes()));
         Reducer.MergedInputs merged = new Reducer.MergedInputs(in.lat, in.lon, in.heading, in.heave, in.roll, in.pitch,
                 in.sog, in.mergeReason);
         Reducer.WaterLevelAt level = in.waterLevel == null ? (t, la, lo) -> 0.0 : in.waterLevel::level;
@@ -214,24 +214,13 @@ public final class ProcessingRun {
     }
 
     /** One ray table per profile, covering the transducer depths, angles and times of this survey. */
-    private static Reducer.BeamTracer[] buildTracers(SurveyInputs in, List<SoundSpeedProfile> profiles) {
-        double maxT = 0, maxAngle = 0, minZ = Double.POSITIVE_INFINITY, maxZ = 0;
-        var p = in.pings;
-        double setSpeed = in.vessel.sounderSetSpeed();
-        for (int i = 0; i < p.size; i++) {
-            double t = Double.isFinite(p.twtt[i]) ? p.twtt[i] / 2 : p.depth[i] / setSpeed;
-            if (t > maxT) maxT = t;
-            double a = Math.abs(Double.isNaN(p.angle[i]) ? 0 : p.angle[i])
-                    + Math.abs(Double.isNaN(in.roll[i]) ? 0 : in.roll[i])
-                    + Math.abs(Double.isNaN(in.pitch[i]) ? 0 : in.pitch[i]);
-            if (a > maxAngle) maxAngle = a;
-            double h = Double.isNaN(in.heave[i]) ? 0 : in.heave[i];
-            minZ = Math.min(minZ, -h);
-            maxZ = Math.max(maxZ, -h);
-        }
-        double draft = in.vessel.transducerDraft();
+    static Reducer.BeamTracer[] buildTracers(DaySummary day, org.leadline.survey.Vessel vessel,
+                                             List<SoundSpeedProfile> profiles) {
+        double maxT = day.maxOneWayTime(), maxAngle = day.maxAngle();
+        double minZ = day.minHeaveDepth(), maxZ = day.maxHeaveDepth();
+        double draft = vessel.transducerDraft();
         double settle = 0;
-        for (double v : in.vessel.settlementValues()) settle = Math.max(settle, v);
+        for (double v : vessel.settlementValues()) settle = Math.max(settle, v);
         double zLo = Math.max(0, draft + minZ - 1.0), zHi = draft + settle + maxZ + 1.0;
         double angle = Math.toRadians(Math.min(80, maxAngle + 2));
         Reducer.BeamTracer[] out = new Reducer.BeamTracer[profiles.size()];

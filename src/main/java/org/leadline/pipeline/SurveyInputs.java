@@ -46,11 +46,15 @@ public final class SurveyInputs {
     public final List<DerivedProfile> profiles;
     public final TideZoning waterLevel; // null: no gauge record
     public final List<String> warnings;
+    /** Survey-wide quantities gathered from the pings before reduction. */
+    public final DaySummary day;
 
     private SurveyInputs(Vessel vessel, PingTable pings, double[][] merged, byte[] reason, List<Cast> casts,
-                         List<DerivedProfile> profiles, TideZoning waterLevel, List<String> warnings) {
+                         List<DerivedProfile> profiles, TideZoning waterLevel, List<String> warnings, DaySummary day) {
         this.vessel = vessel;
         this.pings = pings;
+        this.day = day;
+        if (merged == null) merged = new double[7][];
         lat = merged[0]; lon = merged[1]; heading = merged[2]; heave = merged[3];
         roll = merged[4]; pitch = merged[5]; sog = merged[6];
         this.mergeReason = reason;
@@ -66,18 +70,7 @@ public final class SurveyInputs {
         Project.Settings set = project.settings();
 
         progress.stage("Reading vessel");
-        Vessel vessel = project.vessel() != null ? VesselReader.read(project.vessel())
-                : Vessel.simple(0.0, VesselReader.DEFAULT_SET_SPEED);
-        if (project.vessel() == null) {
-            warnings.add("no vessel file: draft 0 m, no offsets, sounder set speed 1500 m/s, default sensor uncertainties");
-        }
-        if (Double.isFinite(set.draft()) || Double.isFinite(set.sounderSpeed())) {
-            vessel = new Vessel(Double.isFinite(set.draft()) ? set.draft() : vessel.transducerDraft(),
-                    vessel.settlementSpeeds(), vessel.settlementValues(), vessel.positionOffset(),
-                    vessel.transducerOffset(), vessel.latency(),
-                    Double.isFinite(set.sounderSpeed()) ? set.sounderSpeed() : vessel.sounderSetSpeed(),
-                    vessel.beamWidth(), vessel.sigma());
-        }
+        Vessel vessel = vessel(project, warnings);
 
         progress.stage("Reading navigation and attitude");
         NavigationSeries nav = project.navigation() == null ? null : NavigationCsvReader.read(project.navigation());
@@ -126,10 +119,24 @@ public final class SurveyInputs {
             at += m.size;
         }
 
+        DaySummary day = new DaySummary();
+        day.add(pings, cols[0], cols[1], cols[3], cols[4], cols[5], vessel.sounderSetSpeed());
+        SurveyInputs c = context(project, progress, vessel, day, warnings);
+        return new SurveyInputs(vessel, pings, cols, reason, c.casts, c.profiles, c.waterLevel, c.warnings, day);
+    }
+
+    /**
+     * Everything but the pings, for a day whose pings are read chunk by chunk (processing in
+     * tiles): casts turned into profiles (latitude and depth reach from {@code day}), the water
+     * level, and the plausibility warnings. {@link #pings} and the merged columns are null.
+     */
+    static SurveyInputs context(Project project, Progress progress, Vessel vessel, DaySummary day, List<String> warnings)
+            throws IOException {
+        Project.Settings set = project.settings();
         progress.stage("Building sound-speed profiles");
         SoundSpeedEquation eq = SoundSpeedEquation.parse(set.equation());
-        double latitude = Double.isFinite(set.latitude()) ? set.latitude() : median(cols[0]);
-        double deepest = estimateDeepest(pings, vessel);
+        double latitude = Double.isFinite(set.latitude()) ? set.latitude() : day.medianLatitude();
+        double deepest = day.deepest(vessel.transducerDraft());
         List<Cast> casts = new ArrayList<>();
         List<DerivedProfile> profiles = new ArrayList<>();
         for (Path f : project.casts()) {
@@ -154,26 +161,27 @@ public final class SurveyInputs {
         } else {
             warnings.add("no water-level record: depths are below the water surface, NOT reduced to chart datum");
         }
-        warnings.addAll(Plausibility.check(cols[3], project.casts(), profiles, vessel.transducerDraft(),
+        warnings.addAll(Plausibility.check(day.heaveWarning(), project.casts(), profiles, vessel.transducerDraft(),
                 vessel.sounderSetSpeed()));
-        return new SurveyInputs(vessel, pings, cols, reason, casts, profiles, zoning, warnings);
+        return new SurveyInputs(vessel, null, null, null, casts, profiles, zoning, warnings, day);
     }
 
-    /**
-     * Rough deepest seabed below the surface (m), to extend profiles: 1600 m/s x the 99.9th
-     * percentile of one-way times (second echoes and other spikes beyond it are not seabed).
-     */
-    private static double estimateDeepest(PingTable p, Vessel v) {
-        int step = Math.max(1, p.size / 200_000); // a sample is enough for a percentile
-        double[] d = new double[(p.size + step - 1) / step];
-        int k = 0;
-        for (int i = 0; i < p.size; i += step) {
-            double x = Double.isFinite(p.twtt[i]) ? 1600 * p.twtt[i] / 2 : p.depth[i] * 1600 / v.sounderSetSpeed();
-            d[k++] = Double.isFinite(x) ? x : 0;
+    /** The vessel file with the project's overrides (draft, set speed); defaults with a warning when there is none. */
+    static Vessel vessel(Project project, List<String> warnings) throws IOException {
+        Project.Settings set = project.settings();
+        Vessel vessel = project.vessel() != null ? VesselReader.read(project.vessel())
+                : Vessel.simple(0.0, VesselReader.DEFAULT_SET_SPEED);
+        if (project.vessel() == null) {
+            warnings.add("no vessel file: draft 0 m, no offsets, sounder set speed 1500 m/s, default sensor uncertainties");
         }
-        Arrays.sort(d, 0, k);
-        double deep = k == 0 ? 0 : d[Math.min(k - 1, (int) (0.999 * k))];
-        return Math.ceil(deep + v.transducerDraft() + 2);
+        if (Double.isFinite(set.draft()) || Double.isFinite(set.sounderSpeed())) {
+            vessel = new Vessel(Double.isFinite(set.draft()) ? set.draft() : vessel.transducerDraft(),
+                    vessel.settlementSpeeds(), vessel.settlementValues(), vessel.positionOffset(),
+                    vessel.transducerOffset(), vessel.latency(),
+                    Double.isFinite(set.sounderSpeed()) ? set.sounderSpeed() : vessel.sounderSetSpeed(),
+                    vessel.beamWidth(), vessel.sigma());
+        }
+        return vessel;
     }
 
     /** The upper median of the finite values (element n/2 in sorted order), by selection: O(n), no full sort. */

@@ -71,11 +71,23 @@ public final class SensorMerge {
      */
     public static MergedPings merge(PingTable pings, NavigationSeries navigation, AttitudeSeries attitude,
                                     double latency, double speedWindow) {
+        return merge(pings, navigation, attitude, latency, speedWindow, null);
+    }
+
+    /**
+     * Merges sensor values to a chunk of a ping file's rows (a day processed in tiles).
+     *
+     * @param ownTrack the whole file's own positions ({@link OwnTrack}), used for speed and course
+     *                 when there is no separate navigation, so that a chunk gets the speeds the
+     *                 whole file would; null: the chunk's own positions
+     */
+    public static MergedPings merge(PingTable pings, NavigationSeries navigation, AttitudeSeries attitude,
+                                    double latency, double speedWindow, NavigationSeries ownTrack) {
         if (!Double.isFinite(latency)) throw new IllegalArgumentException("latency must be finite, found " + latency);
         if (!(speedWindow > 0)) throw new IllegalArgumentException("speed window must be > 0 s, found " + speedWindow);
         int n = pings.size;
         MergedPings m = new MergedPings(n);
-        NavigationSeries track = navigation != null ? navigation : trackOf(pings);
+        NavigationSeries track = navigation != null ? navigation : ownTrack != null ? ownTrack : trackOf(pings);
         double navShift = navigation != null ? latency : 0;
         boolean[] fromSeries = new boolean[4];
         if (attitude != null) for (int q = 0; q < 4; q++) fromSeries[q] = attitude.has(q);
@@ -159,6 +171,48 @@ public final class SensorMerge {
         }
         if (n < 2) return null;
         return NavigationSeries.of(Arrays.copyOf(t, n), Arrays.copyOf(la, n), Arrays.copyOf(lo, n)).withMaxGap(OWN_TRACK_MAX_GAP);
+    }
+
+    /**
+     * The own-position track of a ping file read chunk by chunk: the same series as the whole
+     * file's {@link #trackOf} (first position of each distinct time), held as one position per
+     * ping, not per beam.
+     */
+    public static final class OwnTrack {
+        private double[] t = new double[1024], la = new double[1024], lo = new double[1024];
+        private int n;
+        private boolean sorted = true;
+
+        /** Adds the next rows of the file, in file order. */
+        public void add(PingTable p) {
+            for (int i = 0; i < p.size; i++) {
+                if (Double.isNaN(p.lat[i]) || Double.isNaN(p.lon[i])) continue;
+                double ti = p.time[i];
+                if (n > 0 && ti == t[n - 1]) continue; // a later beam of the same ping: first position stays
+                if (n > 0 && ti < t[n - 1]) sorted = false;
+                if (n == t.length) {
+                    t = Arrays.copyOf(t, 2 * n);
+                    la = Arrays.copyOf(la, 2 * n);
+                    lo = Arrays.copyOf(lo, 2 * n);
+                }
+                t[n] = ti;
+                la[n] = p.lat[i];
+                lo[n] = p.lon[i];
+                n++;
+            }
+        }
+
+        /** The track, or null with fewer than two distinct times (as {@link #trackOf}). */
+        public NavigationSeries build() {
+            PingTable.Builder b = new PingTable.Builder();
+            if (!sorted) { // rare: the whole-file rule (stable sort by time, first stays first)
+                for (int k = 0; k < n; k++) b.add(t[k], la[k], lo[k], 0, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                        Double.NaN, Double.NaN, null, -1, -1);
+                return trackOf(b.build());
+            }
+            if (n < 2) return null;
+            return NavigationSeries.of(Arrays.copyOf(t, n), Arrays.copyOf(la, n), Arrays.copyOf(lo, n)).withMaxGap(OWN_TRACK_MAX_GAP);
+        }
     }
 
     /**
