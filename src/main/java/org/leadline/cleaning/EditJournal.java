@@ -90,6 +90,47 @@ public final class EditJournal {
         return changed;
     }
 
+    /** Verdict of {@link #verdicts}: no edit selects the sounding. */
+    public static final byte NONE = 0, REJECT = 1, RESTORE = 2;
+
+    /**
+     * What the journal says about each sounding of a chunk of a day (rows firstId.. of the whole
+     * table), for days processed in tiles: the action of the last effective edit that selects it.
+     * {@link #applyVerdict} then gives exactly what {@link #apply} gives on the whole table: an edit
+     * never sets a locked reason, so the last edit wins unless the automatic reason is locked.
+     *
+     * @param effective {@link #effective} edits
+     * @param out       receives one verdict per row of {@code chunk}
+     */
+    public static void verdicts(SoundingTable chunk, long firstId, List<Edit> effective, byte[] out) {
+        java.util.Arrays.fill(out, 0, chunk.size, NONE);
+        for (Edit e : effective) {
+            byte v = e.action() == Action.REJECT ? REJECT : RESTORE;
+            if (e.selection() instanceof Edit.Ids ids) {
+                int[] r = ids.ranges();
+                for (int k = 0; k < r.length; k += 2) {
+                    long from = Math.max(r[k], firstId), to = Math.min(r[k + 1], firstId + chunk.size - 1);
+                    for (long i = from; i <= to; i++) out[(int) (i - firstId)] = v;
+                }
+            } else {
+                e.selection().forEach(chunk, i -> out[i] = v);
+            }
+        }
+    }
+
+    /** Applies one verdict of {@link #verdicts} to a sounding's status and reason (index i of the arrays). */
+    public static void applyVerdict(byte verdict, byte[] status, byte[] reason, int i) {
+        if (verdict == NONE) return;
+        if (status[i] == Status.REJECTED.code && UNRESTORABLE.contains(Reason.of(reason[i]))) return;
+        if (verdict == REJECT) {
+            status[i] = Status.REJECTED.code;
+            reason[i] = Reason.REVIEWER.code;
+        } else {
+            status[i] = Status.ACCEPTED.code;
+            reason[i] = Reason.NONE.code;
+        }
+    }
+
     /** Sequence number the next edit gets after these (1 for none). */
     public static long nextSequence(List<Edit> edits) {
         long m = 0;

@@ -23,4 +23,7 @@ public interface PingChunks extends AutoCloseable {
 
     @Override
     void close() throws IOException;
+
+    /** Chunks of a table already in memory (small sources such as an NMEA log); saves no memory. */
+    static PingChunks of(PingTable table, int targetRows) { return new WholeTableChunks(table, targetRows); }
 }

@@ -59,9 +59,51 @@ public final class ProcessingRun {
     /** The in-memory result of a run (everything the report and the workbench show). */
     public record Result(SurveyInputs inputs, SoundingTable soundings, MapProjection projection, Grid grid,
                          GridSpec gridSpec, Gridder.Method method, Coverage coverage, List<Contours.Polyline> contours,
-                         int[] selected, TpuSummary tpu, ComplianceSummary compliance, S44Order order,
+                         SelectedSoundings selected, TpuSummary tpu, ComplianceSummary compliance, S44Order order,
                          CleaningStats cleaning, int journalEdits, CrosslineResult crosslines, List<String> crosslineLines,
-                         double[] soundSpeedAtTransducer, List<String> warnings, String started) {}
+                         double[] soundSpeedAtTransducer, List<String> warnings, String started,
+                         SoundingCounts counts) {}
+
+    /**
+     * Counts over all soundings of a run (what the report and the lineage say about them).
+     *
+     * @param byReason rejected soundings per reason code (index {@link SoundingTable.Reason#code})
+     * @param castUse  soundings per cast index that used it for ray bending
+     */
+    public record SoundingCounts(long soundings, long accepted, int lines, long[] byReason, long[] castUse) {
+        /** Rejected soundings with this reason. */
+        public long rejectedFor(SoundingTable.Reason why) { return byReason[why.code & 0xff]; }
+
+        static SoundingCounts of(SoundingTable s, int casts) {
+            long[] by = new long[256], use = new long[Math.max(1, casts)];
+            long acc = 0;
+            for (int i = 0; i < s.size; i++) {
+                if (s.accepted(i)) acc++;
+                else by[s.reason[i] & 0xff]++;
+                int c = s.cast[i];
+                if (c >= 0 && c < use.length) use[c]++;
+            }
+            return new SoundingCounts(s.size, acc, s.lineNames().size(), by, use);
+        }
+    }
+
+    /** The shoal-biased selection of soundings for the chart, geographic positions. */
+    public record SelectedSoundings(double[] lon, double[] lat, double[] depth, double[] tvu) {
+        public int size() { return depth.length; }
+
+        static SelectedSoundings of(SoundingTable s, int[] rows) {
+            int m = rows.length;
+            double[] lon = new double[m], lat = new double[m], d = new double[m], tvu = new double[m];
+            for (int k = 0; k < m; k++) {
+                int i = rows[k];
+                lon[k] = s.lon[i];
+                lat[k] = s.lat[i];
+                d[k] = s.depth[i];
+                tvu[k] = s.tvu[i];
+            }
+            return new SelectedSoundings(lon, lat, d, tvu);
+        }
+    }
 
     /** Runs the science without writing anything. */
     public Result compute() throws IOException {
@@ -76,7 +118,7 @@ public final class ProcessingRun {
         List<SoundSpeedProfile> profiles = new ArrayList<>();
         for (var d : in.profiles) profiles.add(d.profile());
         if (profiles.isEmpty()) profiles.add(SoundSpeedProfile.constant(in.vessel.sounderSetSpeed()));
-        Reducer.CastChoice choice = chooseCasts(in, profiles.size());
+        Reducer.CastChoice choice = castChoice(project.settings(), in.casts, in.profiles.size(), in.pings.time, in.lat, in.lon);
 
         progress.stage("Building ray tables");
         Reducer.BeamTracer[] tracers = buildTracers(in.day, in.vessel, profiles);
@@ -94,16 +136,7 @@ public final class ProcessingRun {
         progress.stage("Estimating uncertainty");
         double[] cTransducer = new double[n];
         double[] zoneSigma = new double[n];
-        // rows in parallel blocks, each row written by one task: the same values for any thread count
-        java.util.stream.IntStream.range(0, (n + 65_535) / 65_536).parallel().forEach(b -> {
-            for (int i = b * 65_536, end = Math.min(n, (b + 1) * 65_536); i < end; i++) {
-                int c = Math.max(0, choice.castA()[i]);
-                double zt = in.vessel.transducerDraft() - (Double.isNaN(in.heave[i]) ? 0 : in.heave[i]);
-                cTransducer[i] = profiles.get(c).speedAt(zt);
-                zoneSigma[i] = in.waterLevel != null && Double.isFinite(s.lat[i])
-                        && in.waterLevel.zoneAt(s.lat[i], s.lon[i]) >= 0 ? in.vessel.sigma().tideZone() : 0;
-            }
-        });
+        transducerTerms(s, in.heave, choice.castA(), profiles, in.vessel, in.waterLevel, cTransducer, zoneSigma);
         TpuModel tpu = new TpuModel(in.vessel);
         tpu.compute(s, in.heave, cTransducer, zoneSigma);
         checkCancel();
@@ -143,20 +176,15 @@ public final class ProcessingRun {
         Grid grid = Gridder.build(spec, projection.crs(), s.easting, s.northing, s.depth, s.tvu, s.thu, acc, method,
                 org.leadline.surface.Cube.Parameters.defaults());
         Coverage coverage = Coverage.of(grid);
-        double[] levels = contourLevels(grid);
-        List<Contours.Polyline> contours = new ArrayList<>();
-        // closed rings around fewer than 4 cells are noise on a flat floor at a contour level, not
-        // features a chart would show (common practice: contours are generalised); they are dropped
-        for (List<Contours.Polyline> l : Contours.trace(grid, levels)) {
-            for (Contours.Polyline pl : l) if (!pl.closed() || Math.abs(ringArea(pl)) >= 4 * cell * cell) contours.add(pl);
-        }
+        List<Contours.Polyline> contours = contoursOf(grid);
         int[] selected = SoundingSelection.select(s.easting, s.northing, s.depth, acc, Math.max(5 * cell, 10));
 
         progress.stage("Comparing crosslines");
         List<String> crossNames = new ArrayList<>();
         CrosslineResult cross = compareCrosslines(s, acc, set.crosslines(), spec, projection.crs(), method, order, crossNames);
-        return new Result(in, s, projection, grid, spec, method, coverage, contours, selected, tpuSummary, compliance,
-                order, stats, journalEdits, cross, crossNames, cTransducer, warnings, started);
+        return new Result(in, s, projection, grid, spec, method, coverage, contours, SelectedSoundings.of(s, selected),
+                tpuSummary, compliance, order, stats, journalEdits, cross, crossNames, cTransducer, warnings, started,
+                SoundingCounts.of(s, in.casts.size()));
     }
 
     /** Runs and writes every output into {@code outDir}; returns the result. */
@@ -198,19 +226,55 @@ public final class ProcessingRun {
         return r;
     }
 
-    private Reducer.CastChoice chooseCasts(SurveyInputs in, int nProfiles) {
-        int n = in.pings.size;
-        if (in.profiles.size() <= 1) return new Reducer.CastChoice(new int[n], new int[n], null);
-        int k = in.casts.size();
+    /** Which cast (profile) each ping uses, by the project's cast-selection mode. */
+    static Reducer.CastChoice castChoice(Project.Settings set, List<org.leadline.watercolumn.Cast> casts, int nProfiles,
+                                         double[] time, double[] lat, double[] lon) {
+        int n = time.length;
+        if (nProfiles <= 1) return new Reducer.CastChoice(new int[n], new int[n], null);
+        int k = casts.size();
         double[] ct = new double[k], cla = new double[k], clo = new double[k];
         for (int i = 0; i < k; i++) {
-            ct[i] = in.casts.get(i).time();
-            cla[i] = in.casts.get(i).latitude();
-            clo[i] = in.casts.get(i).longitude();
+            ct[i] = casts.get(i).time();
+            cla[i] = casts.get(i).latitude();
+            clo[i] = casts.get(i).longitude();
         }
-        CastSelector.Mode mode = CastSelector.Mode.parse(project.settings().castSelection());
-        CastSelector.Selection sel = CastSelector.select(mode, ct, cla, clo, in.pings.time, in.lat, in.lon);
+        CastSelector.Mode mode = CastSelector.Mode.parse(set.castSelection());
+        CastSelector.Selection sel = CastSelector.select(mode, ct, cla, clo, time, lat, lon);
         return new Reducer.CastChoice(sel.firstColumn(), sel.secondColumn(), sel.weightColumn());
+    }
+
+    /**
+     * TPU inputs per sounding: the sound speed at the transducer (from the cast the ping used, at
+     * the transducer depth) and the tide-zone uncertainty where a zone applies.
+     */
+    static void transducerTerms(SoundingTable s, double[] heave, int[] castA, List<SoundSpeedProfile> profiles,
+                                org.leadline.survey.Vessel vessel, org.leadline.reduction.TideZoning waterLevel,
+                                double[] cTransducer, double[] zoneSigma) {
+        int n = s.size;
+        // rows in parallel blocks, each row written by one task: the same values for any thread count
+        java.util.stream.IntStream.range(0, (n + 65_535) / 65_536).parallel().forEach(b -> {
+            for (int i = b * 65_536, end = Math.min(n, (b + 1) * 65_536); i < end; i++) {
+                int c = Math.max(0, castA[i]);
+                double zt = vessel.transducerDraft() - (Double.isNaN(heave[i]) ? 0 : heave[i]);
+                cTransducer[i] = profiles.get(c).speedAt(zt);
+                zoneSigma[i] = waterLevel != null && Double.isFinite(s.lat[i])
+                        && waterLevel.zoneAt(s.lat[i], s.lon[i]) >= 0 ? vessel.sigma().tideZone() : 0;
+            }
+        });
+    }
+
+    /**
+     * Contours of the depth layer at a "nice" interval for its range; closed rings around fewer
+     * than 4 cells are noise on a flat floor at a contour level, not features a chart would show
+     * (common practice: contours are generalised), and are dropped.
+     */
+    static List<Contours.Polyline> contoursOf(Grid grid) {
+        double cell = grid.cell;
+        List<Contours.Polyline> contours = new ArrayList<>();
+        for (List<Contours.Polyline> l : Contours.trace(grid, contourLevels(grid))) {
+            for (Contours.Polyline pl : l) if (!pl.closed() || Math.abs(ringArea(pl)) >= 4 * cell * cell) contours.add(pl);
+        }
+        return contours;
     }
 
     /** One ray table per profile, covering the transducer depths, angles and times of this survey. */
@@ -312,17 +376,8 @@ public final class ProcessingRun {
     }
 
     private void writeSelected(Result r, Path file) throws IOException {
-        SoundingTable s = r.soundings();
-        int m = r.selected().length;
-        double[] lon = new double[m], lat = new double[m], d = new double[m], tvu = new double[m];
-        for (int k = 0; k < m; k++) {
-            int i = r.selected()[k];
-            lon[k] = s.lon[i];
-            lat[k] = s.lat[i];
-            d[k] = s.depth[i];
-            tvu[k] = s.tvu[i];
-        }
-        GeoJsonWriter.writeSoundings(file, lon, lat, d, tvu);
+        SelectedSoundings sel = r.selected();
+        GeoJsonWriter.writeSoundings(file, sel.lon(), sel.lat(), sel.depth(), sel.tvu());
     }
 
     private Map<String, Object> settings(Result r) {
@@ -343,8 +398,7 @@ public final class ProcessingRun {
         m.put("crosslines", r.crosslineLines());
         // which cast each ping used (the earlier of the two when interpolating in time)
         List<Map<String, Object>> casts = new ArrayList<>();
-        int[] used = new int[Math.max(1, r.inputs().casts.size())];
-        for (int c : r.soundings().cast) if (c >= 0 && c < used.length) used[c]++;
+        long[] used = r.counts().castUse();
         for (int k = 0; k < r.inputs().casts.size(); k++) {
             Map<String, Object> c = new LinkedHashMap<>();
             c.put("cast", project.casts().get(k).getFileName().toString());

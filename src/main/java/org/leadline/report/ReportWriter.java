@@ -50,13 +50,13 @@ public final class ReportWriter {
                 .append("th{background:#eef}.caution{border:2px solid #a33;padding:.6em;background:#fff4f4}</style></head><body>\n");
         h.append("<h1>Leadline processing report</h1>\n");
         caution(h);
-        SoundingTable s = r.soundings();
-        int acc = s.countAccepted();
+        ProcessingRun.SoundingCounts s = r.counts();
+        long acc = s.accepted();
         h.append("<h2 id=\"summary\">Survey summary</h2><table>");
         row(h, "Project", esc(project.name().isEmpty() ? project.folder().getFileName().toString() : project.name()));
         row(h, "Processed", esc(r.started()) + " with Leadline " + esc(ProcessingRun.version()));
-        row(h, "Soundings", s.size + " (" + acc + " accepted, " + (s.size - acc) + " rejected)");
-        row(h, "Survey lines", String.valueOf(s.lineNames().size()));
+        row(h, "Soundings", s.soundings() + " (" + acc + " accepted, " + (s.soundings() - acc) + " rejected)");
+        row(h, "Survey lines", String.valueOf(s.lines()));
         row(h, "Projected CRS", esc(r.projection().code() + " " + r.projection().name()));
         row(h, "Surface", r.method().name().toLowerCase(Locale.ROOT) + ", cell " + f(r.gridSpec().cell(), 2) + " m, "
                 + r.grid().nx + " x " + r.grid().ny + " cells");
@@ -148,11 +148,10 @@ public final class ReportWriter {
         h.append("</table>\n");
 
         h.append("<h2 id=\"cleaning\">Cleaning</h2><table><tr><th>reason</th><th>soundings rejected</th></tr>");
-        int[] byReason = new int[SoundingTable.Reason.values().length];
-        for (int i = 0; i < s.size; i++) if (!s.accepted(i)) byReason[SoundingTable.Reason.of(s.reason[i]).ordinal()]++;
         for (SoundingTable.Reason why : SoundingTable.Reason.values()) {
-            if (byReason[why.ordinal()] > 0) {
-                h.append("<tr><td style=\"text-align:left\">").append(why.label).append("</td><td>").append(byReason[why.ordinal()]).append("</td></tr>");
+            long k = why == SoundingTable.Reason.NONE ? 0 : s.rejectedFor(why);
+            if (k > 0) {
+                h.append("<tr><td style=\"text-align:left\">").append(why.label).append("</td><td>").append(k).append("</td></tr>");
             }
         }
         h.append("</table><p>Edit journal: ").append(r.journalEdits()).append(" reviewer edits replayed.</p>\n");

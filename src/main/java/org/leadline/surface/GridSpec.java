@@ -69,6 +69,15 @@ public record GridSpec(double xMin, double yMax, double cell, int nx, int ny) {
         if (minE > maxE) {
             throw new IllegalArgumentException("no finite position to grid (" + e.length + " soundings)");
         }
+        return covering(minE, maxE, minN, maxN, cell);
+    }
+
+    /** As {@link #covering(double[], double[], double)}, from the extent of the positions. */
+    public static GridSpec covering(double minE, double maxE, double minN, double maxN, double cell) {
+        if (!(cell > 0) || !Double.isFinite(cell)) {
+            throw new IllegalArgumentException("cell size must be a positive number of metres, got " + cell);
+        }
+        if (!(minE <= maxE && minN <= maxN)) throw new IllegalArgumentException("no finite position to grid");
         double xMin = Math.floor(minE / cell) * cell;
         double yMax = Math.ceil(maxN / cell) * cell;
         int nx = (int) Math.floor((maxE - xMin) / cell) + 1;
