@@ -59,8 +59,8 @@ final class ProcessCommand implements Callable<Integer> {
         ProcessingRun.Result r = new ProcessingRun(project, progress).run(out);
         progress.finish();
         var o = spec.commandLine().getOut();
-        int acc = r.soundings().countAccepted();
-        o.printf(Locale.ROOT, "%d soundings, %d accepted; surface %d x %d cells of %.2f m in %s%n", r.soundings().size,
+        long acc = r.counts().accepted();
+        o.printf(Locale.ROOT, "%d soundings, %d accepted; surface %d x %d cells of %.2f m in %s%n", r.counts().soundings(),
                 acc, r.grid().nx, r.grid().ny, r.gridSpec().cell(), r.projection().code());
         o.printf(Locale.ROOT, "%s: %.2f %% of accepted soundings within TVU, %.2f %% within THU%n", r.order().label(),
                 r.compliance().pctTvu(), r.compliance().pctThu());

@@ -29,4 +29,25 @@ public final class PingFiles {
         return BinaryPingReader.isBinary(file) ? BinaryPingReader.chunks(file, separateNavigation, targetRows)
                 : PingCsvReader.chunks(file, separateNavigation, targetRows);
     }
+
+    /**
+     * Rows in a ping file, about, without reading it: the binary header's count, or for a CSV the
+     * file size over the mean length of the lines in its first MiB. 0 when the file cannot be read
+     * (the reader then says why).
+     */
+    public static long estimateRows(Path file) {
+        try (var in = java.nio.file.Files.newInputStream(file)) {
+            byte[] b = in.readNBytes(1 << 20);
+            if (BinaryPingReader.isBinary(file)) {
+                if (b.length < 14) return 0;
+                return java.nio.ByteBuffer.wrap(b, 6, 8).order(java.nio.ByteOrder.LITTLE_ENDIAN).getLong();
+            }
+            int lines = 0;
+            for (byte x : b) if (x == '\n') lines++;
+            if (lines == 0) return 0;
+            return (long) (java.nio.file.Files.size(file) / (b.length / (double) lines));
+        } catch (java.io.IOException e) {
+            return 0;
+        }
+    }
 }

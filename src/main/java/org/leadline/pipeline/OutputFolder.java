@@ -91,10 +91,14 @@ public final class OutputFolder implements AutoCloseable {
 
     public Path directory() { return dir; }
 
+    /** A path in the staging folder for temporary files that are not outputs (removed with the staging folder). */
+    Path scratch(String name) { return staging.resolve(name); }
+
     /**
      * Path in the staging folder for an output with this final name (a plain file name; no
      * separators or "..", so outputs stay inside the folder).
      */
+
     public Path stage(String name) {
         if (name.isEmpty() || name.contains("/") || name.contains("\\") || name.equals("..") || name.equals(".")
                 || name.startsWith(".leadline-")) {

@@ -198,10 +198,16 @@ public final class ProcessingRun {
         });
         java.util.concurrent.Future<List<LineageWriter.Input>> hashes = hasher.submit(this::hashInputs);
         hasher.shutdown();
-        Result r = compute();
-        progress.stage("Writing soundings.csv");
+        // a day too large for the heap is processed in tiles, writing soundings.csv as it goes
+        boolean tiled = TiledRun.wanted(project);
+        Result r = tiled ? null : compute();
         try (OutputFolder out = OutputFolder.open(outDir)) {
-            SoundingsCsvWriter.write(r.soundings(), out.stage("soundings.csv"));
+            if (tiled) {
+                r = new TiledRun(project, progress).run(out);
+            } else {
+                progress.stage("Writing soundings.csv");
+                SoundingsCsvWriter.write(r.soundings(), out.stage("soundings.csv"));
+            }
             progress.stage("Writing surface files");
             GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
                     List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
@@ -459,7 +465,7 @@ public final class ProcessingRun {
     }
 
     /** A setting that the library refuses is bad input (exit 2), named by its key. */
-    private static <T> T configured(String key, java.util.function.Supplier<T> make) {
+    static <T> T configured(String key, java.util.function.Supplier<T> make) {
         try {
             return make.get();
         } catch (IllegalArgumentException e) {
