@@ -466,18 +466,33 @@ public final class Cleaner {
         for (int i = 0; i < n; i++) if (flagged[i]) nf++;
         if (nf == 0) return;
         double r = SUPPORT_RADIUS;
+        // only cells next to a flagged sounding can hold its witnesses: index just those (flags are
+        // few, so this is a small set instead of a map over every sounding of the day)
+        LongIntMap near = new LongIntMap(Math.max(16, nf * 4));
+        for (int i = 0; i < n; i++) {
+            if (!flagged[i] || !Double.isFinite(s.easting[i]) || !Double.isFinite(s.northing[i])) continue;
+            int cx = cellIndex(s.easting[i], r), cy = cellIndex(s.northing[i], r);
+            for (int dx = -1; dx <= 1; dx++) for (int dy = -1; dy <= 1; dy++) near.putIfAbsent(cellKey(cx + dx, cy + dy), 0);
+        }
         int m = 0;
-        int[] pool = new int[n];
+        int[] pool = new int[Math.min(n, 1024)];
+        long[] poolKey = new long[pool.length];
         for (int i = 0; i < n; i++) {
             if (s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i])
-                    && Double.isFinite(s.northing[i])) pool[m++] = i;
+                    && Double.isFinite(s.northing[i])) {
+                long key = cellKey(cellIndex(s.easting[i], r), cellIndex(s.northing[i], r));
+                if (near.get(key) < 0) continue;
+                if (m == pool.length) {
+                    pool = Arrays.copyOf(pool, 2 * m);
+                    poolKey = Arrays.copyOf(poolKey, 2 * m);
+                }
+                poolKey[m] = key;
+                pool[m++] = i;
+            }
         }
         LongIntMap ids = new LongIntMap(Math.max(16, m / 8));
         int[] cid = new int[m];
-        for (int q = 0; q < m; q++) {
-            int i = pool[q];
-            cid[q] = ids.putIfAbsent(cellKey(cellIndex(s.easting[i], r), cellIndex(s.northing[i], r)), ids.size());
-        }
+        for (int q = 0; q < m; q++) cid[q] = ids.putIfAbsent(poolKey[q], ids.size());
         int cells = ids.size();
         int[] start = new int[cells + 1];
         int[] order = countingSort(pool, cid, m, cells, start);
