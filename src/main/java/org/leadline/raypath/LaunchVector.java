@@ -43,7 +43,7 @@ public final class LaunchVector {
         double ex = ca * Math.sin(pitch);
         double ey = Math.sin(across);
         double ez = ca * Math.cos(pitch);
-        out[0] = Math.atan2(Math.hypot(ex, ey), ez);
+        out[0] = Math.atan2(Math.sqrt(ex * ex + ey * ey), ez);
         out[1] = (ex == 0 && ey == 0) ? 0 : Math.atan2(ey, ex);
     }
 

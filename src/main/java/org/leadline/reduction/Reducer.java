@@ -204,7 +204,7 @@ public final class Reducer {
             double y1 = cf * y - sf * z, z1 = sf * y + cf * z; // Rx(roll)
             lf = st * z1; ls = y1; ld = ct * z1;               // Ry(pitch)
         }
-        double horiz = Math.hypot(lf, ls);
+        double horiz = Math.sqrt(lf * lf + ls * ls); // not Math.hypot: 5x slower, and no overflow is possible here
         double theta = Math.atan2(horiz, ld);
         double azRel = horiz == 0 ? 0 : Math.atan2(ls, lf);
 
