@@ -17,10 +17,12 @@ import org.leadline.survey.PingTable;
 
 /**
  * Reads Leadline's binary ping format ({@code *.lpb}, docs/formats/binary-pings.md; written by
- * {@link BinaryPingWriter}). Every block's CRC-32 is checked before its values are used, so a
- * damaged or truncated file is refused with the block that failed, never read as plausible numbers.
- * The values are then checked by the same rules as {@link PingCsvReader} (ranges, finite numbers,
- * times not decreasing, a twtt or a depth on every row).
+ * {@link BinaryPingWriter}), whole ({@link #read}) or a chunk at a time ({@link #chunks}, bounded
+ * memory for days larger than the heap). Every block's CRC-32 is checked before its values are
+ * used, so a damaged or truncated file is refused with the block that failed, never read as
+ * plausible numbers. Each block's values are then checked by the same rules as
+ * {@link PingCsvReader} (ranges, finite numbers, times not decreasing, a twtt or a depth on every
+ * row). All checks run in file order, so both ways of reading report the same first problem.
  *
  * <p>Error positions: an {@link InputException}'s line is the 1-based <em>row</em> of the table
  * (0 for the header and for block-level damage, whose message names the block and its byte
