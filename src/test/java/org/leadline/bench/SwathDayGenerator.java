@@ -111,14 +111,11 @@ public final class SwathDayGenerator {
             }
         }
         if (binary) {
-            // the binary file holds exactly what the CSV reader reads from pings.csv: values rounded as written there
-            PingTable.Builder b = new PingTable.Builder();
-            double[] r = new double[1];
-            generate(soundings, beams, seed, rays, (t, la, lo, tw, an, hd, hv, ro, pi, line, beam) -> b.addById(
-                    roundTime(t), round(la, 8), round(lo, 8), round(tw, 6), Double.NaN,
-                    round(an, 3), round(hd, 2), round(hv, 3), round(ro, 3), round(pi, 3), b.lineId(lineName(line)), beam, -1));
-            try (OutputStream os = Files.newOutputStream(dir.resolve("pings.lpb"))) {
-                BinaryPingWriter.write(b.build(), os);
+            // the binary file holds exactly what the CSV reader reads from pings.csv: values rounded as written
+            // there; streamed in chunks of one block, so memory does not grow with the day
+            try (OutputStream os = Files.newOutputStream(dir.resolve("pings.lpb"));
+                 BinaryChunker chunker = new BinaryChunker(os, soundings, beams)) {
+                generate(soundings, beams, seed, rays, chunker);
             }
         }
         try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("cast.csv"))) {
@@ -149,6 +146,68 @@ public final class SwathDayGenerator {
                 "  order: 1a",
                 "  draft_m: " + DRAFT,
                 ""));
+    }
+
+    /** Line names of the day: L001, L002, ... for the lines its pings reach (what a reader of pings.csv numbers). */
+    static List<String> lineNames(long soundings, int beams) {
+        long pings = (soundings + beams - 1) / beams;
+        long pingsPerLine = (long) (LINE_LENGTH / SPEED * PING_RATE);
+        List<String> names = new java.util.ArrayList<>();
+        for (int l = 0; l < (pings + pingsPerLine - 1) / pingsPerLine; l++) names.add(lineName(l));
+        return names;
+    }
+
+    /**
+     * Gathers soundings into chunks of one block and appends them to a {@link BinaryPingWriter.Stream}:
+     * the same columns, line names and rounded values as the whole table the generator used to build
+     * ({@code BinaryPingWriter.write} of the CSV's table), hence the same bytes.
+     */
+    private static final class BinaryChunker implements Sink, java.io.Closeable {
+        private final BinaryPingWriter.Stream out;
+        private final List<String> names;
+        private final int cap = BinaryPingWriter.BLOCK_ROWS;
+        private final double[][] d = new double[10][cap];
+        private final int[][] in = new int[3][cap];
+        private int n;
+
+        BinaryChunker(OutputStream os, long soundings, int beams) throws IOException {
+            names = lineNames(soundings, beams);
+            // every generated column has values (depth and quality never do); an empty day stores time only
+            List<String> columns = soundings == 0 ? List.of("time")
+                    : List.of("time", "lat", "lon", "twtt", "angle", "heading", "heave", "roll", "pitch", "line", "beam");
+            out = BinaryPingWriter.open(os, soundings, names, columns);
+        }
+
+        @Override
+        public void accept(double t, double la, double lo, double tw, double an, double hd, double hv, double ro,
+                           double pi, int line, int beam) {
+            d[0][n] = roundTime(t); d[1][n] = round(la, 8); d[2][n] = round(lo, 8); d[3][n] = round(tw, 6);
+            d[4][n] = Double.NaN; d[5][n] = round(an, 3); d[6][n] = round(hd, 2); d[7][n] = round(hv, 3);
+            d[8][n] = round(ro, 3); d[9][n] = round(pi, 3);
+            in[0][n] = line; in[1][n] = beam; in[2][n] = -1;
+            if (++n == cap) flush();
+        }
+
+        private void flush() {
+            if (n == 0) return;
+            double[][] c = new double[10][];
+            int[][] ci = new int[3][];
+            for (int k = 0; k < 10; k++) c[k] = java.util.Arrays.copyOf(d[k], n);
+            for (int k = 0; k < 3; k++) ci[k] = java.util.Arrays.copyOf(in[k], n);
+            try {
+                out.append(PingTable.ofColumns(n, c[0], c[1], c[2], c[3], c[4], c[5], c[6], c[7], c[8], c[9],
+                        ci[0], ci[1], ci[2], names));
+            } catch (IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+            n = 0;
+        }
+
+        @Override
+        public void close() throws IOException {
+            flush();
+            out.close();
+        }
     }
 
     /** The value the CSV reader gets back from {@link Fixed#append}'s text (half away from zero, no -0). */
