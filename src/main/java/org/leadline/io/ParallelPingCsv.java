@@ -112,13 +112,17 @@ final class ParallelPingCsv {
 
     /** As {@link #read(Path, boolean)} with ranges of about {@code rangeBytes}. */
     static PingTable read(Path file, boolean separateNavigation, int rangeBytes) {
+        return read(file, separateNavigation, rangeBytes, windowBytes(rangeBytes));
+    }
+
+    /** As {@link #read(Path, boolean)} with ranges of about {@code rangeBytes} in mapped windows of about {@code windowBytes}. */
+    static PingTable read(Path file, boolean separateNavigation, int rangeBytes, int windowBytes) {
         try (FileChannel ch = FileChannel.open(file, StandardOpenOption.READ)) {
             long size = ch.size();
             Header h = header(ch, size);
             if (h == null || !h.usable(separateNavigation)) return null;
             List<Range> ranges = new ArrayList<>();
             long from = h.dataStart;
-            int windowBytes = windowBytes(rangeBytes);
             while (from < size) {
                 List<Range> w = window(ch, from, size, windowBytes, rangeBytes);
                 ranges.addAll(w);
