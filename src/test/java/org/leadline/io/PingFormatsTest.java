@@ -86,6 +86,10 @@ class PingFormatsTest {
                 assertThat(fast).as("fast path taken for seed %d, ranges of %d bytes", seed, rangeBytes).isNotNull();
                 assertSameTable(fast, reference);
             }
+            // mapped windows smaller than the file (ranges are cut inside a window)
+            PingTable windows = ParallelPingCsv.read(f, false, 97, 1000);
+            assertThat(windows).isNotNull();
+            assertSameTable(windows, reference);
         }
     }
 
@@ -135,6 +139,29 @@ class PingFormatsTest {
         assertThat(ParallelPingCsv.read(back, false, 1)).isNull();
         assertThatThrownBy(() -> PingCsvReader.read(back)).isInstanceOfSatisfying(InputException.class,
                 e -> assertThat(e.line()).isEqualTo(3));
+    }
+
+    @Test
+    void utf8AndCutOffRowsAsTheGeneralPathSeesThem() throws IOException {
+        // a UTF-8 line name stays on the fast path and gives the general path's name
+        Path utf8 = dir.resolve("utf8.csv");
+        Files.write(utf8, "# Vermessung S\u00fcd\ntime,lat,lon,twtt,line\n2026-05-14T08:00:00Z,50,-4,0.1,S\u00fcd 1\n"
+                .getBytes(java.nio.charset.StandardCharsets.UTF_8));
+        PingTable t = ParallelPingCsv.read(utf8, false, 1);
+        assertThat(t).isNotNull();
+        assertThat(t.lineName(0)).isEqualTo("S\u00fcd 1");
+        assertSameTable(t, general(utf8, false));
+        // a Latin-1 byte, even in a column Leadline ignores: the general path refuses the file at that byte
+        Path latin1 = dir.resolve("latin1.csv");
+        Files.write(latin1, "time,lat,lon,twtt,note\n2026-05-14T08:00:00Z,50,-4,0.1,S\u00fcd\n"
+                .getBytes(java.nio.charset.StandardCharsets.ISO_8859_1));
+        assertThat(ParallelPingCsv.read(latin1, false, 1)).isNull();
+        assertThatThrownBy(() -> PingCsvReader.read(latin1)).isInstanceOf(InputException.class).hasMessageContaining("not UTF-8");
+        // a last row cut short without its line end: optional fields missing, still refused as cut off
+        Path cut = dir.resolve("cut.csv");
+        Files.writeString(cut, "time,lat,lon,twtt,heave,line\n2026-05-14T08:00:00Z,50,-4,0.1,0.2,L1\n2026-05-14T08:00:01Z,50,-4,0.1");
+        assertThat(ParallelPingCsv.read(cut, false, 1)).isNull();
+        assertThatThrownBy(() -> PingCsvReader.read(cut)).isInstanceOf(InputException.class).hasMessageContaining("cut off");
     }
 
     private PingTable sample() throws IOException {
