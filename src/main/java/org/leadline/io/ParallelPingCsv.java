@@ -48,6 +48,8 @@ final class ParallelPingCsv {
     static final int RANGE_BYTES = 1 << 20;
     /** Bytes per memory-mapped window (at least): ranges are cut inside one window. */
     static final int WINDOW_BYTES = 64 << 20;
+    /** Bytes per window of the streaming reader (16 ranges: both cores busy, about 15 MB of parsed rows). */
+    static final int STREAM_WINDOW_BYTES = 16 << 20;
     private static final double[] POW10 = new double[23];
     static {
         double p = 1;
@@ -158,6 +160,11 @@ final class ParallelPingCsv {
 
     static int windowBytes(int rangeBytes) {
         return (int) Math.min(1L << 30, Math.max(WINDOW_BYTES, 32L * rangeBytes));
+    }
+
+    /** Mapped window of the streaming reader: smaller, as its parsed rows are what it holds in memory. */
+    static int streamWindowBytes(int rangeBytes) {
+        return (int) Math.min(1L << 30, Math.max(STREAM_WINDOW_BYTES, 16L * rangeBytes));
     }
 
     /** Checks times across ranges, numbers the lines in order of first appearance, closes holes left by comment lines. */

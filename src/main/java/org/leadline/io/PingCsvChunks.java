@@ -15,11 +15,11 @@ import org.leadline.survey.PingTable;
 
 /**
  * A ping CSV read a chunk at a time in bounded memory (the streamed processing path,
- * docs/performance.md): the file is memory-mapped one window (about 64 MiB) at a time, in order;
+ * docs/performance.md): the file is memory-mapped one window (16 MiB) at a time, in order;
  * the window's byte ranges are parsed in parallel by the fast path of {@link ParallelPingCsv}, then
  * appended in file order to a buffer of pending rows, from which chunks of about the requested rows
  * are cut at ping boundaries (a ping whose beams straddle a range or window boundary stays whole).
- * Memory: one window of mapped file, its parsed rows, and the pending rows (about one chunk).
+ * Memory: one window of mapped file, its parsed rows (about 15 MB), the pending rows (about one chunk) and the chunks cut from one range.
  *
  * <p>Line ids are numbered in order of first appearance in the file, as {@link PingCsvReader#read}
  * numbers them; every chunk carries the dictionary so far as its line names.
@@ -37,8 +37,11 @@ final class PingCsvChunks implements PingChunks {
     private FileChannel ch;
     private long size;
     private ParallelPingCsv.Header header;
-    /** Next byte for the fast path, and the physical lines before it. */
-    private long pos, linesBefore;
+    /** Next byte to map, and the physical lines before the next range to append. */
+    private long mapped, linesBefore;
+    /** Parsed ranges of the current window waiting to be appended (null: refused by the fast path). */
+    private final ArrayDeque<ParallelPingCsv.Range> queuedRanges = new ArrayDeque<>();
+    private final ArrayDeque<java.util.Optional<ParallelPingCsv.Cols>> queued = new ArrayDeque<>();
     private double lastTime = Double.NEGATIVE_INFINITY;
     private long served;
 
@@ -79,7 +82,7 @@ final class PingCsvChunks implements PingChunks {
                 throw e;
             }
         } else {
-            pos = header.dataStart;
+            mapped = header.dataStart;
             linesBefore = header.dataLines;
         }
     }
@@ -87,7 +90,7 @@ final class PingCsvChunks implements PingChunks {
     @Override
     public PingTable next() throws IOException {
         while (ready.isEmpty() && !done) {
-            if (general != null) fillGeneral(); else fillFast();
+            if (general != null) fillGeneral(); else if (!queued.isEmpty()) appendQueued(); else fillFast();
         }
         return ready.poll();
     }
@@ -96,7 +99,7 @@ final class PingCsvChunks implements PingChunks {
     public long expectedRows() { return -1; }
 
     /** Bytes of the file the fast path has parsed so far (tests: the file is read a window at a time). */
-    long position() { return pos; }
+    long position() { return mapped; }
 
     /** Whether the general path took over (tests). */
     boolean general() { return general != null; }
@@ -118,9 +121,9 @@ final class PingCsvChunks implements PingChunks {
         }
     }
 
-    /** One window through the fast path. */
+    /** Parses the next window through the fast path (its ranges are appended one by one as chunks are asked for). */
     private void fillFast() throws IOException {
-        if (pos >= size) {
+        if (mapped >= size) {
             if (served + (n - head) == 0) { startGeneral(0); return; } // no rows: the general path says so
             cut(true);
             done = true;
@@ -128,7 +131,7 @@ final class PingCsvChunks implements PingChunks {
         }
         List<ParallelPingCsv.Range> ranges;
         try {
-            ranges = ParallelPingCsv.window(ch, pos, size, windowBytes, rangeBytes);
+            ranges = ParallelPingCsv.window(ch, mapped, size, windowBytes, rangeBytes);
         } catch (ParallelPingCsv.GiveUp e) {
             startGeneral(linesBefore + 1);
             return;
@@ -152,17 +155,26 @@ final class PingCsvChunks implements PingChunks {
             }
         });
         for (int k = 0; k < parts.length; k++) {
-            ParallelPingCsv.Cols p = parts[k];
-            if (p == null || (p.n > 0 && p.firstTime < lastTime)) {
-                startGeneral(linesBefore + 1); // rows of the ranges before were appended; the general path serves the rest
-                cut(false);
-                return;
-            }
-            append(p);
-            if (p.n > 0) lastTime = p.lastTime;
-            linesBefore += ranges.get(k).lines;
-            pos = ranges.get(k).to;
+            queuedRanges.add(ranges.get(k));
+            queued.add(java.util.Optional.ofNullable(parts[k]));
         }
+        mapped = ranges.get(ranges.size() - 1).to;
+    }
+
+    /** Appends the next parsed range and cuts what chunks it completes. */
+    private void appendQueued() {
+        ParallelPingCsv.Range r = queuedRanges.poll();
+        ParallelPingCsv.Cols p = queued.poll().orElse(null);
+        if (p == null || (p.n > 0 && p.firstTime < lastTime)) {
+            queued.clear();
+            queuedRanges.clear();
+            startGeneral(linesBefore + 1); // the rows before were appended; the general path serves the rest
+            cut(false);
+            return;
+        }
+        append(p);
+        if (p.n > 0) lastTime = p.lastTime;
+        linesBefore += r.lines;
         cut(false);
     }
 

@@ -213,7 +213,7 @@ public final class PingCsvReader {
     /**
      * Reads the file a chunk at a time ({@link PingChunks}); same rows, values, line ids and errors
      * as {@link #read}, in bounded memory: the file is read in order, a window of byte ranges at a
-     * time, parsed in parallel by the fast path ({@link PingCsvChunks}); from a range the fast path
+     * time (16 MiB), parsed in parallel by the fast path ({@link PingCsvChunks}); from a range the fast path
      * refuses (quoted fields, lone CR line ends, an error, ...) on, the general path reads the rest
      * row by row, still in bounded memory.
      *
@@ -221,6 +221,6 @@ public final class PingCsvReader {
      */
     public static PingChunks chunks(Path file, boolean separateNavigation, int targetRows) throws java.io.IOException {
         int rangeBytes = ParallelPingCsv.rangeBytes();
-        return new PingCsvChunks(file, separateNavigation, targetRows, rangeBytes, ParallelPingCsv.windowBytes(rangeBytes));
+        return new PingCsvChunks(file, separateNavigation, targetRows, rangeBytes, ParallelPingCsv.streamWindowBytes(rangeBytes));
     }
 }
