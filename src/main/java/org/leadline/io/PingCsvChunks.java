@@ -122,7 +122,7 @@ final class PingCsvChunks implements PingChunks {
     }
 
     /** Parses the next window through the fast path (its ranges are appended one by one as chunks are asked for). */
-    private void fillFast() throws IOException {
+    private void fillFast() {
         if (mapped >= size) {
             if (served + (n - head) == 0) { startGeneral(0); return; } // no rows: the general path says so
             cut(true);
@@ -132,7 +132,7 @@ final class PingCsvChunks implements PingChunks {
         List<ParallelPingCsv.Range> ranges;
         try {
             ranges = ParallelPingCsv.window(ch, mapped, size, windowBytes, rangeBytes);
-        } catch (ParallelPingCsv.GiveUp e) {
+        } catch (ParallelPingCsv.GiveUp | IOException e) { // a line longer than a window, a file that cannot be mapped
             startGeneral(linesBefore + 1);
             return;
         }

@@ -221,7 +221,7 @@ public final class PingCsvReader {
      *
      * @param targetRows rows per chunk, about (a chunk ends at a ping boundary)
      */
-    public static PingChunks chunks(Path file, boolean separateNavigation, int targetRows) throws java.io.IOException {
+    public static PingChunks chunks(Path file, boolean separateNavigation, int targetRows) {
         int rangeBytes = ParallelPingCsv.rangeBytes();
         return new PingCsvChunks(file, separateNavigation, targetRows, rangeBytes, ParallelPingCsv.streamWindowBytes(rangeBytes));
     }
