@@ -98,17 +98,15 @@ final class ParallelPingCsv {
         final MappedByteBuffer window;
         final long windowStart;
         final long from, to;
-        final boolean atEof;
         int lines;
         /** Upper bound of its rows (lines, plus one for a last line without a line end). */
         int capacity;
 
-        Range(MappedByteBuffer window, long windowStart, long from, long to, boolean atEof) {
+        Range(MappedByteBuffer window, long windowStart, long from, long to) {
             this.window = window;
             this.windowStart = windowStart;
             this.from = from;
             this.to = to;
-            this.atEof = atEof;
         }
     }
 
@@ -291,7 +289,7 @@ final class ParallelPingCsv {
                 while (e < len && w.get(e) != '\n') e++;
                 e = Math.min(len, e + 1);
             }
-            out.add(new Range(w, from, from + s, from + e, eof && e == len));
+            out.add(new Range(w, from, from + s, from + e));
             s = e;
         }
         return out;
