@@ -132,6 +132,11 @@ class PingCsvChunksTest {
                 for (int target : new int[]{1, 57, 1000, whole.size + 1}) {
                     List<PingTable> c = chunks(f, false, target, rangeBytes, windowBytes);
                     assertSameRows(c, whole, target);
+                    // cut where the whole-table slices of the other formats are cut: the first ping start at or after the target
+                    List<Integer> sizes = new ArrayList<>();
+                    WholeTableChunks w = new WholeTableChunks(whole, target);
+                    for (PingTable t = w.next(); t != null; t = w.next()) sizes.add(t.size);
+                    assertThat(c.stream().map(t -> t.size).toList()).isEqualTo(sizes);
                     if (target > whole.size) assertThat(c).hasSize(1);
                 }
             }
