@@ -555,24 +555,18 @@ final class ParallelPingCsv {
             boolean neg = false;
             byte c = b[q];
             if (c == '-') { neg = true; q++; } else if (c == '+') { q++; }
+            // integer part, then fraction: tight loops; more than 18 digits (a long could overflow) go to parseDouble
             long m = 0;
-            int frac = 0, digits = 0;
-            boolean dot = false;
-            while (q < len) {
-                c = b[q];
-                int dgt = c - '0';
-                if (dgt >= 0 && dgt <= 9) {
-                    if (m >= 100_000_000_000_000_000L) return slowNumber(s);
-                    m = m * 10 + dgt;
-                    digits++;
-                    if (dot) frac++;
-                } else if (c == '.' && !dot) {
-                    dot = true;
-                } else {
-                    break;
-                }
-                q++;
+            int start = q, dgt;
+            while (q < len && (dgt = b[q] - '0') >= 0 && dgt <= 9) { m = m * 10 + dgt; q++; }
+            int digits = q - start, frac = 0;
+            if (q < len && b[q] == '.') {
+                int fs = ++q;
+                while (q < len && (dgt = b[q] - '0') >= 0 && dgt <= 9) { m = m * 10 + dgt; q++; }
+                frac = q - fs;
+                digits += frac;
             }
+            if (digits > 18) return slowNumber(s);
             p = q;
             if (q < len && b[q] != ',' && b[q] != '\n') { spaces(); q = p; }
             if (!(q >= len || b[q] == ',' || b[q] == '\n') || digits == 0 || m > (1L << 53) || frac >= POW10.length) {
