@@ -9,7 +9,7 @@ import org.leadline.survey.PingTable;
 
 /**
  * Wall and process CPU time of reading a ping file (CSV or binary), repeated:
- * {@code java -cp <test classpath> org.leadline.bench.ReadPingsProbe FILE [repeats] [--chunks ROWS]}.
+ * {@code java -cp <test classpath> org.leadline.bench.ReadPingsProbe FILE [repeats] [--chunks ROWS | ROWS]}.
  * With {@code --chunks} the file is read chunk by chunk ({@link PingFiles#chunks}) and each chunk
  * dropped: the streamed reader's speed, and (run with a small {@code -Xmx}) its bounded memory.
  */
@@ -18,10 +18,11 @@ public final class ReadPingsProbe {
 
     public static void main(String[] args) throws IOException {
         Path f = Path.of(args[0]);
-        int repeats = 3, chunkRows = 0;
+        int repeats = 3, chunkRows = 0, positional = 0;
         for (int i = 1; i < args.length; i++) {
             if (args[i].equals("--chunks")) chunkRows = Integer.parseInt(args[++i].replace("_", ""));
-            else repeats = Integer.parseInt(args[i]);
+            else if (positional++ == 0) repeats = Integer.parseInt(args[i]);
+            else chunkRows = Integer.parseInt(args[i].replace("_", "")); // FILE repeats chunkRows
         }
         var os = (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory.getOperatingSystemMXBean();
         for (int r = 0; r < repeats; r++) {

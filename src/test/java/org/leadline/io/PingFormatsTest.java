@@ -86,6 +86,10 @@ class PingFormatsTest {
                 assertThat(fast).as("fast path taken for seed %d, ranges of %d bytes", seed, rangeBytes).isNotNull();
                 assertSameTable(fast, reference);
             }
+            // mapped windows smaller than the file (ranges are cut inside a window)
+            PingTable windows = ParallelPingCsv.read(f, false, 97, 1000);
+            assertThat(windows).isNotNull();
+            assertSameTable(windows, reference);
         }
     }
 
@@ -93,7 +97,8 @@ class PingFormatsTest {
     void decimalsConvertLikeParseDouble() throws IOException {
         // Double.parseDouble is correctly rounded (JLS / Double.valueOf javadoc): the reference for every digit string
         SplittableRandom r = new SplittableRandom(7);
-        StringBuilder sb = new StringBuilder("time,lat,lon,twtt\n");
+        // heave: the one number column without a plausible range (twtt beyond 16 s would be refused)
+        StringBuilder sb = new StringBuilder("time,lat,lon,twtt,heave\n");
         String[] texts = new String[20000];
         for (int i = 0; i < texts.length; i++) {
             long m = r.nextLong(1L << 54);
@@ -101,15 +106,15 @@ class PingFormatsTest {
             String digits = Long.toString(m);
             while (digits.length() <= frac) digits = "0" + digits;
             texts[i] = digits.substring(0, digits.length() - frac) + "." + digits.substring(digits.length() - frac);
-            sb.append("2026-05-14T08:00:00Z,0,0,").append(texts[i]).append('\n');
+            sb.append("2026-05-14T08:00:00Z,0,0,0.1,").append(texts[i]).append('\n');
         }
         Path f = dir.resolve("digits.csv");
         Files.writeString(f, sb.toString());
         PingTable t = ParallelPingCsv.read(f, false, 1 << 16);
         assertThat(t).isNotNull();
-        for (int i = 0; i < texts.length; i++) assertThat(t.twtt[i]).as(texts[i]).isEqualTo(Double.parseDouble(texts[i]));
+        for (int i = 0; i < texts.length; i++) assertThat(t.heave[i]).as(texts[i]).isEqualTo(Double.parseDouble(texts[i]));
         // worked by hand: 0.1 is not a double; both paths give the double nearest to it
-        assertThat(t.twtt.length).isEqualTo(20000);
+        assertThat(t.heave.length).isEqualTo(20000);
     }
 
     @Test
@@ -134,6 +139,29 @@ class PingFormatsTest {
         assertThat(ParallelPingCsv.read(back, false, 1)).isNull();
         assertThatThrownBy(() -> PingCsvReader.read(back)).isInstanceOfSatisfying(InputException.class,
                 e -> assertThat(e.line()).isEqualTo(3));
+    }
+
+    @Test
+    void utf8AndCutOffRowsAsTheGeneralPathSeesThem() throws IOException {
+        // a UTF-8 line name stays on the fast path and gives the general path's name
+        Path utf8 = dir.resolve("utf8.csv");
+        Files.write(utf8, "# Vermessung S\u00fcd\ntime,lat,lon,twtt,line\n2026-05-14T08:00:00Z,50,-4,0.1,S\u00fcd 1\n"
+                .getBytes(java.nio.charset.StandardCharsets.UTF_8));
+        PingTable t = ParallelPingCsv.read(utf8, false, 1);
+        assertThat(t).isNotNull();
+        assertThat(t.lineName(0)).isEqualTo("S\u00fcd 1");
+        assertSameTable(t, general(utf8, false));
+        // a Latin-1 byte, even in a column Leadline ignores: the general path refuses the file at that byte
+        Path latin1 = dir.resolve("latin1.csv");
+        Files.write(latin1, "time,lat,lon,twtt,note\n2026-05-14T08:00:00Z,50,-4,0.1,S\u00fcd\n"
+                .getBytes(java.nio.charset.StandardCharsets.ISO_8859_1));
+        assertThat(ParallelPingCsv.read(latin1, false, 1)).isNull();
+        assertThatThrownBy(() -> PingCsvReader.read(latin1)).isInstanceOf(InputException.class).hasMessageContaining("not UTF-8");
+        // a last row cut short without its line end: optional fields missing, still refused as cut off
+        Path cut = dir.resolve("cut.csv");
+        Files.writeString(cut, "time,lat,lon,twtt,heave,line\n2026-05-14T08:00:00Z,50,-4,0.1,0.2,L1\n2026-05-14T08:00:01Z,50,-4,0.1");
+        assertThat(ParallelPingCsv.read(cut, false, 1)).isNull();
+        assertThatThrownBy(() -> PingCsvReader.read(cut)).isInstanceOf(InputException.class).hasMessageContaining("cut off");
     }
 
     private PingTable sample() throws IOException {
