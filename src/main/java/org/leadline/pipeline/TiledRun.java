@@ -264,6 +264,7 @@ final class TiledRun {
             // spatial cleaning, tile by tile
             List<Long> keys = spill.tiles();
             progress.stage("Cleaning " + keys.size() + " tiles");
+            Extent ext = new Extent();
             int done = 0;
             for (long key : keys) {
                 TileSpill.Records rec = spill.read(key);
@@ -285,6 +286,8 @@ final class TiledRun {
                         status[rec.id[i]] = t.status[i];
                         reason[rec.id[i]] = t.reason[i];
                     }
+                    // without a journal these statuses are final: the surface extent needs no extra pass
+                    if (verdict == null && core[i] && t.status[i] == Status.ACCEPTED.code) ext.add(rec.e[i], rec.n[i], rec.depth[i]);
                 }
                 progress.fraction(++done / (double) keys.size());
                 checkCancel();
@@ -308,22 +311,20 @@ final class TiledRun {
 
             // extent and cell size
             progress.stage("Building surface");
-            double minE = Double.POSITIVE_INFINITY, maxE = Double.NEGATIVE_INFINITY;
-            double minN = Double.POSITIVE_INFINITY, maxN = Double.NEGATIVE_INFINITY;
-            DaySummary.Sample depthSample = new DaySummary.Sample(DaySummary.POSITION_CAP);
-            long nAcc = 0;
-            for (long key : keys) {
-                TileSpill.Records rec = spill.read(key);
-                for (int i = 0; i < rec.size; i++) {
-                    if (status[rec.id[i]] != Status.ACCEPTED.code || spill.home(rec.e[i], rec.n[i]) != key) continue;
-                    nAcc++;
-                    minE = Math.min(minE, rec.e[i]);
-                    maxE = Math.max(maxE, rec.e[i]);
-                    minN = Math.min(minN, rec.n[i]);
-                    maxN = Math.max(maxN, rec.n[i]);
-                    depthSample.add(rec.depth[i]);
+            if (verdict != null) {
+                // the journal changed statuses after cleaning: the extent of what is accepted now
+                for (long key : keys) {
+                    TileSpill.Records rec = spill.read(key);
+                    for (int i = 0; i < rec.size; i++) {
+                        if (status[rec.id[i]] == Status.ACCEPTED.code && spill.home(rec.e[i], rec.n[i]) == key) {
+                            ext.add(rec.e[i], rec.n[i], rec.depth[i]);
+                        }
+                    }
                 }
             }
+            double minE = ext.minE, maxE = ext.maxE, minN = ext.minN, maxN = ext.maxN;
+            DaySummary.Sample depthSample = ext.depths;
+            long nAcc = ext.count;
             if (nAcc == 0) {
                 Map<String, Integer> why = new java.util.TreeMap<>();
                 for (int i = 0; i < total; i++) why.merge(Reason.of(reason[i]).label, 1, Integer::sum);
@@ -607,6 +608,23 @@ final class TiledRun {
         try (var s = Files.walk(dir)) {
             List<Path> all = s.sorted(java.util.Comparator.reverseOrder()).toList();
             for (Path p : all) Files.deleteIfExists(p);
+        }
+    }
+
+    /** Extent and a depth sample of the accepted soundings, for the grid geometry and the suggested cell. */
+    private static final class Extent {
+        double minE = Double.POSITIVE_INFINITY, maxE = Double.NEGATIVE_INFINITY;
+        double minN = Double.POSITIVE_INFINITY, maxN = Double.NEGATIVE_INFINITY;
+        long count;
+        final DaySummary.Sample depths = new DaySummary.Sample(DaySummary.POSITION_CAP);
+
+        void add(double e, double n, double d) {
+            count++;
+            minE = Math.min(minE, e);
+            maxE = Math.max(maxE, e);
+            minN = Math.min(minN, n);
+            maxN = Math.max(maxN, n);
+            depths.add(d);
         }
     }
 
