@@ -3,6 +3,7 @@ package org.leadline.surface;
 import java.util.Arrays;
 import java.util.HashMap;
 import java.util.Map;
+import java.util.stream.IntStream;
 
 /**
  * Shoal-biased sounding selection for a chart or a field sheet: a thinned set of soundings
@@ -24,8 +25,11 @@ import java.util.Map;
  * it. A chain A (shoalest) - B (within the radius of A, suppressed) - C (within the radius of B
  * but not of A) selects A and C while B, shoaler than C, lies within the radius of C.
  *
- * <p>Speed: O(n log n) for the stable sort by depth, then a hash of radius-sized buckets makes each
- * test look at the 3 x 3 neighbouring buckets only.
+ * <p>Speed: O(n log n) for the stable sort by depth (parallel merge sort), then radius-sized buckets
+ * make each test look at the 3 x 3 neighbouring buckets only; before that, a grid of squares an
+ * eighth of the radius wide flags the squares wholly inside the radius of a selected sounding, so
+ * that most soundings of a dense swath day are rejected by one look-up (same result as the exact
+ * test, which they would fail).
  */
 public final class SoundingSelection {
     private SoundingSelection() {}
@@ -47,38 +51,139 @@ public final class SoundingSelection {
             throw new IllegalArgumentException("sounding columns differ in length: e " + e.length + ", n " + n.length
                     + ", depth " + size + (accepted != null ? ", accepted " + accepted.length : ""));
         }
-        int[] idx = new int[size];
-        int m = 0;
-        for (int i = 0; i < size; i++) {
-            if ((accepted == null || accepted[i]) && Double.isFinite(depth[i]) && Double.isFinite(e[i])
-                    && Double.isFinite(n[i])) {
-                idx[m++] = i;
-            }
-        }
-        idx = Arrays.copyOf(idx, m);
+        int[] idx = usable(e, n, depth, accepted);
+        int m = idx.length;
         sortByDepth(idx, depth);
 
         double r2 = radius * radius;
+        // the extent, read in index order (the same minimum and maximum as in depth order)
         double minE = Double.POSITIVE_INFINITY, minN = Double.POSITIVE_INFINITY;
         double maxE = Double.NEGATIVE_INFINITY, maxN = Double.NEGATIVE_INFINITY;
-        for (int i : idx) {
+        for (int i = 0; i < size; i++) {
+            if (!usable(e, n, depth, accepted, i)) continue;
             minE = Math.min(minE, e[i]);
             maxE = Math.max(maxE, e[i]);
             minN = Math.min(minN, n[i]);
             maxN = Math.max(maxN, n[i]);
         }
         double nbxD = Math.floor((maxE - minE) / radius) + 1, nbyD = Math.floor((maxN - minN) / radius) + 1;
-        Buckets buckets = m > 0 && nbxD * nbyD <= Math.max(4.0 * m, 1 << 20)
-                ? new DenseBuckets(minE, minN, radius, (int) nbxD, (int) nbyD) : new HashBuckets(radius);
+        boolean dense = m > 0 && nbxD * nbyD <= Math.max(4.0 * m, 1 << 20);
+        Buckets buckets = dense ? new DenseBuckets(minE, minN, radius, (int) nbxD, (int) nbyD) : new HashBuckets(radius);
         int[] out = new int[Math.min(m, 1024)];
         int k = 0;
-        for (int i : idx) {
-            if (buckets.anyWithin(e, n, e[i], n[i], r2)) continue;
+        CoverGrid cover = dense ? CoverGrid.over(minE, minN, maxE, maxN, radius, m) : null;
+        if (cover == null) {
+            for (int i : idx) {
+                if (buckets.anyWithin(e, n, e[i], n[i], r2)) continue;
+                if (k == out.length) out = Arrays.copyOf(out, out.length * 2);
+                out[k++] = i;
+                buckets.add(i, e[i], n[i]);
+            }
+            return Arrays.copyOf(out, k);
+        }
+        // Most soundings lie in a small square wholly inside the disk of a sounding already
+        // selected: they are rejected by one look-up, the others get the exact test above.
+        int[] square = cover.squaresInOrder(idx, e, n);
+        byte[] covered = cover.covered;
+        for (int q = 0; q < m; q++) {
+            if (covered[square[q]] != 0) continue;
+            int i = idx[q];
+            double x = e[i], y = n[i];
+            if (buckets.anyWithin(e, n, x, y, r2)) continue;
             if (k == out.length) out = Arrays.copyOf(out, out.length * 2);
             out[k++] = i;
-            buckets.add(i, e[i], n[i]);
+            buckets.add(i, x, y);
+            cover.markInside(x, y, radius);
         }
         return Arrays.copyOf(out, k);
+    }
+
+    private static boolean usable(double[] e, double[] n, double[] depth, boolean[] accepted, int i) {
+        return (accepted == null || accepted[i]) && Double.isFinite(depth[i]) && Double.isFinite(e[i])
+                && Double.isFinite(n[i]);
+    }
+
+    /** Indices of the usable soundings in increasing order (counted and filled in parallel blocks). */
+    private static int[] usable(double[] e, double[] n, double[] depth, boolean[] accepted) {
+        int size = depth.length;
+        int block = 1 << 16, blocks = (size + block - 1) / block;
+        int[] count = new int[blocks + 1];
+        IntStream.range(0, blocks).parallel().forEach(b -> {
+            int c = 0;
+            for (int i = b * block, end = Math.min(size, (b + 1) * block); i < end; i++) if (usable(e, n, depth, accepted, i)) c++;
+            count[b + 1] = c;
+        });
+        for (int b = 0; b < blocks; b++) count[b + 1] += count[b];
+        int[] idx = new int[count[blocks]];
+        IntStream.range(0, blocks).parallel().forEach(b -> {
+            int k = count[b];
+            for (int i = b * block, end = Math.min(size, (b + 1) * block); i < end; i++) if (usable(e, n, depth, accepted, i)) idx[k++] = i;
+        });
+        return idx;
+    }
+
+    /**
+     * Squares of an eighth of the radius over the data's extent, flagged once they lie wholly inside
+     * the radius of a selected sounding (with a margin of a micrometre and a relative 1e-9 on the
+     * squared distance, far above the rounding of the coordinates): any sounding in a flagged square
+     * would fail the exact test against that selected sounding, so flagging changes no result.
+     */
+    private static final class CoverGrid {
+        final double x0, y0, size;
+        final int nx, ny;
+        final byte[] covered;
+
+        private CoverGrid(double x0, double y0, double size, int nx, int ny) {
+            this.x0 = x0;
+            this.y0 = y0;
+            this.size = size;
+            this.nx = nx;
+            this.ny = ny;
+            covered = new byte[nx * ny];
+        }
+
+        /** null when the grid would be too large for the number of soundings. */
+        static CoverGrid over(double minE, double minN, double maxE, double maxN, double radius, int m) {
+            double size = radius / 8;
+            double nx = Math.floor((maxE - minE) / size) + 1, ny = Math.floor((maxN - minN) / size) + 1;
+            if (!(nx * ny <= Math.max(4.0 * m, 1 << 20))) return null;
+            return new CoverGrid(minE, minN, size, (int) nx, (int) ny);
+        }
+
+        int square(double x, double y) {
+            int cx = Math.min(nx - 1, Math.max(0, (int) ((x - x0) / size)));
+            int cy = Math.min(ny - 1, Math.max(0, (int) ((y - y0) / size)));
+            return cy * nx + cx;
+        }
+
+        /** The square of each sounding in sorted order, gathered in parallel blocks. */
+        int[] squaresInOrder(int[] idx, double[] e, double[] n) {
+            int m = idx.length;
+            int[] sq = new int[m];
+            int block = 1 << 15;
+            IntStream.range(0, (m + block - 1) / block).parallel().forEach(b -> {
+                for (int q = b * block, end = Math.min(m, (b + 1) * block); q < end; q++) sq[q] = square(e[idx[q]], n[idx[q]]);
+            });
+            return sq;
+        }
+
+        /** Flags the squares that lie wholly within {@code radius} of (x, y). */
+        void markInside(double x, double y, double radius) {
+            final double margin = 1e-6;
+            double limit = radius * radius * (1 - 1e-9);
+            int cx0 = Math.max(0, (int) Math.floor((x - radius - x0) / size)), cx1 = Math.min(nx - 1, (int) ((x + radius - x0) / size));
+            int cy0 = Math.max(0, (int) Math.floor((y - radius - y0) / size)), cy1 = Math.min(ny - 1, (int) ((y + radius - y0) / size));
+            for (int cy = cy0; cy <= cy1; cy++) {
+                // a sounding counted in square cy lies within [y0 + cy size, y0 + (cy + 1) size] up to rounding
+                double dy = Math.max(Math.abs(y0 + cy * size - margin - y), Math.abs(y0 + (cy + 1) * size + margin - y));
+                if (cy == 0 || cy == ny - 1) continue;   // edge squares also hold the clamped soundings
+                for (int cx = cx0; cx <= cx1; cx++) {
+                    if (cx == 0 || cx == nx - 1) continue;
+                    double dx = Math.max(Math.abs(x0 + cx * size - margin - x), Math.abs(x0 + (cx + 1) * size + margin - x));
+                    if (dx * dx + dy * dy <= limit) covered[cy * nx + cx] = 1;
+                }
+            }
+        }
     }
 
     /** Selected soundings by square buckets of the radius's size: a neighbour lies in the 3 x 3 block. */
@@ -88,12 +193,16 @@ public final class SoundingSelection {
         void add(int i, double x, double y);
     }
 
-    /** A dense bucket array over the data's extent, each bucket a linked list through next[]. */
+    /**
+     * A dense bucket array over the data's extent, each bucket a linked list through next[]; the
+     * selected soundings' coordinates are kept beside the list (read in sequence, not scattered).
+     */
     private static final class DenseBuckets implements Buckets {
         final double x0, y0, size;
         final int nbx, nby;
         final int[] head;
-        int[] next = new int[1024], item = new int[1024];
+        int[] next = new int[1024];
+        double[] itemX = new double[1024], itemY = new double[1024];
         int count;
 
         DenseBuckets(double x0, double y0, double size, int nbx, int nby) {
@@ -111,8 +220,7 @@ public final class SoundingSelection {
             for (int cy = Math.max(0, by - 1); cy <= Math.min(nby - 1, by + 1); cy++) {
                 for (int cx = Math.max(0, bx - 1); cx <= Math.min(nbx - 1, bx + 1); cx++) {
                     for (int p = head[cy * nbx + cx]; p >= 0; p = next[p]) {
-                        int s = item[p];
-                        double dx = e[s] - x, dy = n[s] - y;
+                        double dx = itemX[p] - x, dy = itemY[p] - y;
                         if (dx * dx + dy * dy <= r2) return true;
                     }
                 }
@@ -121,12 +229,14 @@ public final class SoundingSelection {
         }
 
         public void add(int i, double x, double y) {
-            if (count == item.length) {
-                item = Arrays.copyOf(item, count * 2);
+            if (count == next.length) {
+                itemX = Arrays.copyOf(itemX, count * 2);
+                itemY = Arrays.copyOf(itemY, count * 2);
                 next = Arrays.copyOf(next, count * 2);
             }
             int b = (int) ((y - y0) / size) * nbx + (int) ((x - x0) / size);
-            item[count] = i;
+            itemX[count] = x;
+            itemY[count] = y;
             next[count] = head[b];
             head[b] = count++;
         }
@@ -172,16 +282,45 @@ public final class SoundingSelection {
     /**
      * Stable sort of indices by depth (ties keep index order): bottom-up merge sort that carries the
      * depth keys beside the indices, so merging reads memory in sequence instead of depth[idx[i]].
+     * Blocks of the array are sorted in parallel, then merged pairwise (pairs in parallel); a stable
+     * sort has one result, so it is the same for any thread count.
      */
     static void sortByDepth(int[] idx, double[] depth) {
         int len = idx.length;
         double[] key = new double[len], keyTmp = new double[len];
         int[] tmp = new int[len];
-        for (int i = 0; i < len; i++) key[i] = depth[idx[i]];
-        // insertion sort of runs of 16
-        final int run = 16;
-        for (int lo = 0; lo < len; lo += run) {
-            int hi = Math.min(lo + run, len);
+        int blocks = 1;
+        while (blocks < 64 && (long) len / (blocks * 2L) >= (1 << 16)) blocks *= 2;
+        int width = (len + blocks - 1) / Math.max(1, blocks);
+        int w0 = Math.max(1, width);
+        IntStream.range(0, blocks).parallel().forEach(bl -> {
+            int lo = Math.min(len, bl * w0), hi = Math.min(len, lo + w0);
+            for (int i = lo; i < hi; i++) key[i] = depth[idx[i]];
+            sortRange(idx, key, tmp, keyTmp, lo, hi);
+        });
+        int[] src = idx, dst = tmp;
+        double[] ks = key, kd = keyTmp;
+        for (int w = w0; w < len; w *= 2) {
+            final int fw = w;
+            final int[] s0 = src, d0 = dst;
+            final double[] ks0 = ks, kd0 = kd;
+            int pairs = (len + 2 * w - 1) / (2 * w);
+            IntStream.range(0, pairs).parallel().forEach(pr -> {
+                int lo = (int) Math.min(len, 2L * fw * pr);
+                int mid = (int) Math.min(len, (long) lo + fw), hi = (int) Math.min(len, (long) lo + 2L * fw);
+                merge(s0, ks0, d0, kd0, lo, mid, hi);
+            });
+            int[] si = src; src = dst; dst = si;
+            double[] sk = ks; ks = kd; kd = sk;
+        }
+        if (src != idx) System.arraycopy(src, 0, idx, 0, len);
+    }
+
+    /** Sorts idx[lo, hi) by key[lo, hi) (stable); the result is left in idx and key. */
+    private static void sortRange(int[] idx, double[] key, int[] tmp, double[] keyTmp, int lo0, int hi0) {
+        final int run = 16;   // insertion sort of runs of 16, then bottom-up merges
+        for (int lo = lo0; lo < hi0; lo += run) {
+            int hi = Math.min(lo + run, hi0);
             for (int i = lo + 1; i < hi; i++) {
                 double k = key[i];
                 int v = idx[i], j = i - 1;
@@ -196,20 +335,29 @@ public final class SoundingSelection {
         }
         int[] src = idx, dst = tmp;
         double[] ks = key, kd = keyTmp;
-        for (int width = run; width < len; width *= 2) {
-            for (int lo = 0; lo < len; lo += 2 * width) {
-                int mid = Math.min(lo + width, len), hi = Math.min(lo + 2 * width, len);
-                int a = lo, b = mid, t = lo;
-                while (a < mid && b < hi) {
-                    if (ks[b] < ks[a]) { kd[t] = ks[b]; dst[t++] = src[b++]; }
-                    else { kd[t] = ks[a]; dst[t++] = src[a++]; }
-                }
-                while (a < mid) { kd[t] = ks[a]; dst[t++] = src[a++]; }
-                while (b < hi) { kd[t] = ks[b]; dst[t++] = src[b++]; }
+        int n = hi0 - lo0;
+        for (int width = run; width < n; width *= 2) {
+            for (int lo = lo0; lo < hi0; lo += 2 * width) {
+                int mid = Math.min(lo + width, hi0), hi = Math.min(lo + 2 * width, hi0);
+                merge(src, ks, dst, kd, lo, mid, hi);
             }
             int[] si = src; src = dst; dst = si;
             double[] sk = ks; ks = kd; kd = sk;
         }
-        if (src != idx) System.arraycopy(src, 0, idx, 0, len);
+        if (src != idx) {
+            System.arraycopy(src, lo0, idx, lo0, n);
+            System.arraycopy(ks, lo0, key, lo0, n);
+        }
+    }
+
+    /** Merges the sorted runs [lo, mid) and [mid, hi) of src into dst; ties take the left run first. */
+    private static void merge(int[] src, double[] ks, int[] dst, double[] kd, int lo, int mid, int hi) {
+        int a = lo, b = mid, t = lo;
+        while (a < mid && b < hi) {
+            if (ks[b] < ks[a]) { kd[t] = ks[b]; dst[t++] = src[b++]; }
+            else { kd[t] = ks[a]; dst[t++] = src[a++]; }
+        }
+        while (a < mid) { kd[t] = ks[a]; dst[t++] = src[a++]; }
+        while (b < hi) { kd[t] = ks[b]; dst[t++] = src[b++]; }
     }
 }
