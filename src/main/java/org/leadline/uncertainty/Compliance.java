@@ -4,6 +4,7 @@ import org.leadline.survey.SoundingTable;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.stream.IntStream;
 
 /**
  * Per-sounding test of TVU and THU against an IHO S-44 edition 6.0.0 order (Table 1 limits at the
@@ -20,6 +21,8 @@ public final class Compliance {
     public static final byte THU_OK = 2;
     /** Depth bands of the report, m: 0-5, 5-10, 10-20, 20-50, 50+ (common practice). */
     public static final double[] DEFAULT_BANDS = {0, 5, 10, 20, 50};
+    /** Rows per parallel block (fixed, so that sums do not depend on the number of cores). */
+    private static final int BLOCK = 65_536;
 
     public final S44Order order;
     /** Per sounding: TVU_OK | THU_OK bits. */
@@ -32,15 +35,19 @@ public final class Compliance {
 
     /** Tests every sounding's tvu and thu (95 %, m) against the order at its reduced depth. */
     public static Compliance evaluate(SoundingTable soundings, S44Order order) {
-        byte[] f = new byte[soundings.size];
-        for (int i = 0; i < soundings.size; i++) {
-            double d = soundings.depth[i];
-            if (Double.isNaN(d)) continue;
-            byte b = 0;
-            if (soundings.tvu[i] <= order.tvuLimit(d)) b |= TVU_OK;
-            if (soundings.thu[i] <= order.thuLimit(d)) b |= THU_OK;
-            f[i] = b;
-        }
+        int n = soundings.size;
+        byte[] f = new byte[n];
+        // rows in fixed blocks on all cores; each flag is written by one task
+        IntStream.range(0, (n + BLOCK - 1) / BLOCK).parallel().forEach(blk -> {
+            for (int i = blk * BLOCK, end = Math.min(n, (blk + 1) * BLOCK); i < end; i++) {
+                double d = soundings.depth[i];
+                if (Double.isNaN(d)) continue;
+                byte b = 0;
+                if (soundings.tvu[i] <= order.tvuLimit(d)) b |= TVU_OK;
+                if (soundings.thu[i] <= order.thuLimit(d)) b |= THU_OK;
+                f[i] = b;
+            }
+        });
         return new Compliance(order, f);
     }
 
@@ -73,21 +80,45 @@ public final class Compliance {
                         + " then " + bandStarts[k]);
             }
         }
+        // Counts and sums by fixed blocks of rows (each in row order), then the blocks in order: a
+        // deterministic reduction, the same bits for any thread count.
+        int size = soundings.size;
+        int[][] pn = new int[(size + BLOCK - 1) / BLOCK][];
+        double[][] ps = new double[pn.length][];
+        IntStream.range(0, pn.length).parallel().forEach(blk -> {
+            int[] c = new int[4 * nb];             // n, nTvu, nThu, nBoth per band
+            double[] x = new double[3 * nb];       // sTvu, sThu, maxRatio per band
+            for (int i = blk * BLOCK, end = Math.min(size, (blk + 1) * BLOCK); i < end; i++) {
+                double d = soundings.depth[i];
+                if (!soundings.accepted(i) || !Double.isFinite(d)) continue;
+                int k = nb - 1;
+                while (k > 0 && d < bandStarts[k]) k--;
+                c[k]++;
+                if (tvuOk(i)) c[nb + k]++;
+                if (thuOk(i)) c[2 * nb + k]++;
+                if (bothOk(i)) c[3 * nb + k]++;
+                x[k] += soundings.tvu[i];
+                x[nb + k] += soundings.thu[i];
+                if (Double.isFinite(soundings.tvu[i])) {
+                    x[2 * nb + k] = Math.max(x[2 * nb + k], soundings.tvu[i] / order.tvuLimit(d));
+                }
+            }
+            pn[blk] = c;
+            ps[blk] = x;
+        });
         int[] n = new int[nb], nTvu = new int[nb], nThu = new int[nb], nBoth = new int[nb];
         double[] sTvu = new double[nb], sThu = new double[nb], maxRatio = new double[nb];
-        for (int i = 0; i < soundings.size; i++) {
-            double d = soundings.depth[i];
-            if (!soundings.accepted(i) || !Double.isFinite(d)) continue;
-            int k = nb - 1;
-            while (k > 0 && d < bandStarts[k]) k--;
-            n[k]++;
-            if (tvuOk(i)) nTvu[k]++;
-            if (thuOk(i)) nThu[k]++;
-            if (bothOk(i)) nBoth[k]++;
-            sTvu[k] += soundings.tvu[i];
-            sThu[k] += soundings.thu[i];
-            if (Double.isFinite(soundings.tvu[i])) {
-                maxRatio[k] = Math.max(maxRatio[k], soundings.tvu[i] / order.tvuLimit(d));
+        for (int blk = 0; blk < pn.length; blk++) {
+            int[] c = pn[blk];
+            double[] x = ps[blk];
+            for (int k = 0; k < nb; k++) {
+                n[k] += c[k];
+                nTvu[k] += c[nb + k];
+                nThu[k] += c[2 * nb + k];
+                nBoth[k] += c[3 * nb + k];
+                sTvu[k] += x[k];
+                sThu[k] += x[nb + k];
+                maxRatio[k] = Math.max(maxRatio[k], x[2 * nb + k]);
             }
         }
         List<ComplianceSummary.Band> bands = new ArrayList<>();

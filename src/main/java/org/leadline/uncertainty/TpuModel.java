@@ -5,6 +5,7 @@ import org.leadline.survey.Vessel;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.stream.IntStream;
 
 /**
  * Total propagated uncertainty (TPU) of single-beam and swath soundings: the total vertical
@@ -94,19 +95,23 @@ public final class TpuModel {
         checkLength(soundings, heave, "heave");
         checkLength(soundings, soundSpeedAtTransducer, "soundSpeedAtTransducer");
         checkLength(soundings, tideZoneSigma, "tideZoneSigma");
-        double[] v = new double[N], a = new double[N], c = new double[N];
-        for (int i = 0; i < soundings.size; i++) {
-            double z = rayDepth(soundings, i, heave);
-            if (Double.isNaN(z)) {
-                soundings.tvu[i] = Double.NaN;
-                soundings.thu[i] = Double.NaN;
-                continue;
+        int n = soundings.size;
+        // rows in fixed blocks on all cores: each row is written by one task, the same bits for any thread count
+        IntStream.range(0, (n + BLOCK - 1) / BLOCK).parallel().forEach(b -> {
+            double[] v = new double[N], a = new double[N], c = new double[N];
+            for (int i = b * BLOCK, end = Math.min(n, (b + 1) * BLOCK); i < end; i++) {
+                double z = rayDepth(soundings, i, heave);
+                if (Double.isNaN(z)) {
+                    soundings.tvu[i] = Double.NaN;
+                    soundings.thu[i] = Double.NaN;
+                    continue;
+                }
+                terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
+                        soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
+                soundings.tvu[i] = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
+                soundings.thu[i] = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
             }
-            terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
-                    soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
-            soundings.tvu[i] = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
-            soundings.thu[i] = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
-        }
+        });
     }
 
     /** The breakdown of sounding i of a reduced table (same inputs as {@link #compute}); null arrays allowed. */
@@ -152,27 +157,46 @@ public final class TpuModel {
         checkLength(soundings, heave, "heave");
         checkLength(soundings, soundSpeedAtTransducer, "soundSpeedAtTransducer");
         checkLength(soundings, tideZoneSigma, "tideZoneSigma");
-        double[] v = new double[N], a = new double[N], c = new double[N];
+        int n = soundings.size;
+        // Sums by fixed blocks of rows (each summed in row order on any core), then the block sums in
+        // block order: a deterministic reduction, the same bits for any thread count.
+        Partial[] parts = new Partial[(n + BLOCK - 1) / BLOCK];
+        IntStream.range(0, parts.length).parallel().forEach(b -> {
+            Partial p = new Partial();
+            double[] v = new double[N], a = new double[N], c = new double[N];
+            for (int i = b * BLOCK, end = Math.min(n, (b + 1) * BLOCK); i < end; i++) {
+                if (!soundings.accepted(i)) continue;
+                double z = rayDepth(soundings, i, heave);
+                if (Double.isNaN(z)) continue;
+                terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
+                        soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
+                for (int k = 0; k < N; k++) {
+                    p.sv[k] += v[k] * v[k];
+                    p.sh[k] += a[k] * a[k] + c[k] * c[k];
+                }
+                double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
+                double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
+                p.sumTvu += tvu;
+                p.sumThu += thu;
+                p.maxTvu = Math.max(p.maxTvu, tvu);
+                p.maxThu = Math.max(p.maxThu, thu);
+                p.count++;
+            }
+            parts[b] = p;
+        });
         double[] sv = new double[N], sh = new double[N];
         int count = 0;
         double sumTvu = 0, maxTvu = 0, sumThu = 0, maxThu = 0;
-        for (int i = 0; i < soundings.size; i++) {
-            if (!soundings.accepted(i)) continue;
-            double z = rayDepth(soundings, i, heave);
-            if (Double.isNaN(z)) continue;
-            terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
-                    soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
+        for (Partial p : parts) {
             for (int k = 0; k < N; k++) {
-                sv[k] += v[k] * v[k];
-                sh[k] += a[k] * a[k] + c[k] * c[k];
+                sv[k] += p.sv[k];
+                sh[k] += p.sh[k];
             }
-            double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
-            double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
-            sumTvu += tvu;
-            sumThu += thu;
-            maxTvu = Math.max(maxTvu, tvu);
-            maxThu = Math.max(maxThu, thu);
-            count++;
+            sumTvu += p.sumTvu;
+            sumThu += p.sumThu;
+            maxTvu = Math.max(maxTvu, p.maxTvu);
+            maxThu = Math.max(maxThu, p.maxThu);
+            count += p.count;
         }
         List<TpuSummary.Entry> entries = new ArrayList<>();
         for (TpuComponent comp : TpuComponent.values()) {
@@ -183,6 +207,16 @@ public final class TpuModel {
         return new TpuSummary(count, entries, count == 0 ? Double.NaN : sumTvu / count,
                 count == 0 ? Double.NaN : maxTvu, count == 0 ? Double.NaN : sumThu / count,
                 count == 0 ? Double.NaN : maxThu);
+    }
+
+    /** Rows per parallel block of {@link #compute} and {@link #summarize} (fixed: results do not depend on the cores). */
+    private static final int BLOCK = 65_536;
+
+    /** Sums of one block of rows in {@link #summarize}. */
+    private static final class Partial {
+        final double[] sv = new double[N], sh = new double[N];
+        int count;
+        double sumTvu, maxTvu, sumThu, maxThu;
     }
 
     /** Depth of the footprint below the transducer, m: surfaceDepth - (draft + settlement - heave). */
