@@ -53,19 +53,12 @@ public final class SoundingSelection {
         }
         int[] idx = usable(e, n, depth, accepted);
         int m = idx.length;
+        // the extent (minimum and maximum do not depend on the order they are read in)
+        double[] box = extent(e, n, idx);
         sortByDepth(idx, depth);
 
         double r2 = radius * radius;
-        // the extent, read in index order (the same minimum and maximum as in depth order)
-        double minE = Double.POSITIVE_INFINITY, minN = Double.POSITIVE_INFINITY;
-        double maxE = Double.NEGATIVE_INFINITY, maxN = Double.NEGATIVE_INFINITY;
-        for (int i = 0; i < size; i++) {
-            if (!usable(e, n, depth, accepted, i)) continue;
-            minE = Math.min(minE, e[i]);
-            maxE = Math.max(maxE, e[i]);
-            minN = Math.min(minN, n[i]);
-            maxN = Math.max(maxN, n[i]);
-        }
+        double minE = box[0], maxE = box[1], minN = box[2], maxN = box[3];
         double nbxD = Math.floor((maxE - minE) / radius) + 1, nbyD = Math.floor((maxN - minN) / radius) + 1;
         boolean dense = m > 0 && nbxD * nbyD <= Math.max(4.0 * m, 1 << 20);
         Buckets buckets = dense ? new DenseBuckets(minE, minN, radius, (int) nbxD, (int) nbyD) : new HashBuckets(radius);
@@ -84,9 +77,10 @@ public final class SoundingSelection {
         // Most soundings lie in a small square wholly inside the disk of a sounding already
         // selected: they are rejected by one look-up, the others get the exact test above.
         int[] square = cover.squaresInOrder(idx, e, n);
-        byte[] covered = cover.covered;
+        long[] covered = cover.covered;
         for (int q = 0; q < m; q++) {
-            if (covered[square[q]] != 0) continue;
+            int sq = square[q];
+            if ((covered[sq >>> 6] & (1L << sq)) != 0) continue;
             int i = idx[q];
             double x = e[i], y = n[i];
             if (buckets.anyWithin(e, n, x, y, r2)) continue;
@@ -101,6 +95,32 @@ public final class SoundingSelection {
     private static boolean usable(double[] e, double[] n, double[] depth, boolean[] accepted, int i) {
         return (accepted == null || accepted[i]) && Double.isFinite(depth[i]) && Double.isFinite(e[i])
                 && Double.isFinite(n[i]);
+    }
+
+    /** {min e, max e, min n, max n} of the soundings idx, in parallel blocks. */
+    private static double[] extent(double[] e, double[] n, int[] idx) {
+        int m = idx.length, block = 1 << 16;
+        double[][] part = new double[(m + block - 1) / block][];
+        IntStream.range(0, part.length).parallel().forEach(b -> {
+            double x0 = Double.POSITIVE_INFINITY, x1 = Double.NEGATIVE_INFINITY;
+            double y0 = Double.POSITIVE_INFINITY, y1 = Double.NEGATIVE_INFINITY;
+            for (int q = b * block, end = Math.min(m, (b + 1) * block); q < end; q++) {
+                int i = idx[q];
+                x0 = Math.min(x0, e[i]);
+                x1 = Math.max(x1, e[i]);
+                y0 = Math.min(y0, n[i]);
+                y1 = Math.max(y1, n[i]);
+            }
+            part[b] = new double[] {x0, x1, y0, y1};
+        });
+        double[] box = {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+        for (double[] p : part) {
+            box[0] = Math.min(box[0], p[0]);
+            box[1] = Math.max(box[1], p[1]);
+            box[2] = Math.min(box[2], p[2]);
+            box[3] = Math.max(box[3], p[3]);
+        }
+        return box;
     }
 
     /** Indices of the usable soundings in increasing order (counted and filled in parallel blocks). */
@@ -131,7 +151,7 @@ public final class SoundingSelection {
     private static final class CoverGrid {
         final double x0, y0, size;
         final int nx, ny;
-        final byte[] covered;
+        final long[] covered;   // one bit per square
 
         private CoverGrid(double x0, double y0, double size, int nx, int ny) {
             this.x0 = x0;
@@ -139,7 +159,7 @@ public final class SoundingSelection {
             this.size = size;
             this.nx = nx;
             this.ny = ny;
-            covered = new byte[nx * ny];
+            covered = new long[(int) (((long) nx * ny + 63) / 64)];
         }
 
         /** null when the grid would be too large for the number of soundings. */
@@ -156,13 +176,22 @@ public final class SoundingSelection {
             return cy * nx + cx;
         }
 
-        /** The square of each sounding in sorted order, gathered in parallel blocks. */
+        /**
+         * The square of each sounding in sorted order: computed in index order (reading e and n in
+         * sequence), then gathered (one scattered read per sounding), both in parallel blocks.
+         */
         int[] squaresInOrder(int[] idx, double[] e, double[] n) {
-            int m = idx.length;
-            int[] sq = new int[m];
+            int size = e.length, m = idx.length;
             int block = 1 << 15;
+            int[] byIndex = new int[size];
+            IntStream.range(0, (size + block - 1) / block).parallel().forEach(b -> {
+                for (int i = b * block, end = Math.min(size, (b + 1) * block); i < end; i++) {
+                    if (Double.isFinite(e[i]) && Double.isFinite(n[i])) byIndex[i] = square(e[i], n[i]);
+                }
+            });
+            int[] sq = new int[m];
             IntStream.range(0, (m + block - 1) / block).parallel().forEach(b -> {
-                for (int q = b * block, end = Math.min(m, (b + 1) * block); q < end; q++) sq[q] = square(e[idx[q]], n[idx[q]]);
+                for (int q = b * block, end = Math.min(m, (b + 1) * block); q < end; q++) sq[q] = byIndex[idx[q]];
             });
             return sq;
         }
@@ -180,7 +209,8 @@ public final class SoundingSelection {
                 for (int cx = cx0; cx <= cx1; cx++) {
                     if (cx == 0 || cx == nx - 1) continue;
                     double dx = Math.max(Math.abs(x0 + cx * size - margin - x), Math.abs(x0 + (cx + 1) * size + margin - x));
-                    if (dx * dx + dy * dy <= limit) covered[cy * nx + cx] = 1;
+                    int sq = cy * nx + cx;
+                    if (dx * dx + dy * dy <= limit) covered[sq >>> 6] |= 1L << sq;
                 }
             }
         }
@@ -280,14 +310,92 @@ public final class SoundingSelection {
     private static long key(long bx, long by) { return bx * 0x9E3779B97F4A7C15L ^ by; }
 
     /**
-     * Stable sort of indices by depth (ties keep index order): bottom-up merge sort that carries the
-     * depth keys beside the indices, so merging reads memory in sequence instead of depth[idx[i]].
-     * Blocks of the array are sorted in parallel, then merged pairwise (pairs in parallel); a stable
-     * sort has one result, so it is the same for any thread count.
+     * Stable sort of indices by depth (ties keep index order). Large arrays: a stable counting
+     * scatter into depth buckets (a monotone map of depth, so bucket order is depth order), then each
+     * bucket sorted on its own; small arrays and unusual ranges: a parallel merge sort. A stable sort
+     * has one result, so it is the same for any thread count and either way.
      */
     static void sortByDepth(int[] idx, double[] depth) {
         int len = idx.length;
-        double[] key = new double[len], keyTmp = new double[len];
+        double[] key = new double[len];
+        int block = 1 << 16;
+        IntStream.range(0, (len + block - 1) / block).parallel().forEach(b -> {
+            for (int i = b * block, end = Math.min(len, (b + 1) * block); i < end; i++) key[i] = depth[idx[i]];
+        });
+        if (len < (1 << 17) || !bucketSort(idx, key)) mergeSort(idx, key);
+    }
+
+    /** Bucket sort of idx by key (see {@link #sortByDepth}); false (nothing changed) when the keys do not suit it. */
+    private static boolean bucketSort(int[] idx, double[] key) {
+        int len = idx.length;
+        final int parts = 8;                                  // fixed: the scatter does not depend on the cores
+        int per = (len + parts - 1) / parts;
+        double[][] mm = new double[parts][];
+        IntStream.range(0, parts).parallel().forEach(t -> {
+            double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+            for (int i = t * per, end = Math.min(len, (t + 1) * per); i < end; i++) {
+                lo = Math.min(lo, key[i]);
+                hi = Math.max(hi, key[i]);
+            }
+            mm[t] = new double[] {lo, hi};
+        });
+        double min = Double.POSITIVE_INFINITY, max = Double.NEGATIVE_INFINITY;
+        for (double[] x : mm) { min = Math.min(min, x[0]); max = Math.max(max, x[1]); }
+        if (!(max > min) || !Double.isFinite(max - min)) return false;
+        final int nb = Integer.highestOneBit(Math.max(1024, Math.min(1 << 20, len / 16)));
+        final double lo = min, scale = nb / (max - min);
+        int[][] count = new int[parts][nb + 1];
+        IntStream.range(0, parts).parallel().forEach(t -> {
+            int[] c = count[t];
+            for (int i = t * per, end = Math.min(len, (t + 1) * per); i < end; i++) c[bucket(key[i], lo, scale, nb)]++;
+        });
+        // start of each (bucket, part): buckets in order, parts in order within a bucket (stable)
+        int[] bucketStart = new int[nb + 1];
+        int run = 0;
+        for (int b = 0; b < nb; b++) {
+            bucketStart[b] = run;
+            for (int t = 0; t < parts; t++) {
+                int c = count[t][b];
+                count[t][b] = run;
+                run += c;
+            }
+        }
+        bucketStart[nb] = run;
+        int[] outIdx = new int[len];
+        double[] outKey = new double[len];
+        IntStream.range(0, parts).parallel().forEach(t -> {
+            int[] pos = count[t];
+            for (int i = t * per, end = Math.min(len, (t + 1) * per); i < end; i++) {
+                int p = pos[bucket(key[i], lo, scale, nb)]++;
+                outIdx[p] = idx[i];
+                outKey[p] = key[i];
+            }
+        });
+        // each bucket in place; idx and key serve as scratch (groups of buckets in parallel)
+        int groups = 256;
+        IntStream.range(0, groups).parallel().forEach(g -> {
+            for (int b = (int) ((long) nb * g / groups), b1 = (int) ((long) nb * (g + 1) / groups); b < b1; b++) {
+                int from = bucketStart[b], to = bucketStart[b + 1];
+                if (to - from > 1) sortRange(outIdx, outKey, idx, key, from, to);
+            }
+        });
+        System.arraycopy(outIdx, 0, idx, 0, len);
+        return true;
+    }
+
+    /** Bucket of a key: non-decreasing in the key (floating-point subtraction, product and floor are monotone). */
+    private static int bucket(double k, double lo, double scale, int nb) {
+        int b = (int) ((k - lo) * scale);
+        return b < 0 ? 0 : b >= nb ? nb - 1 : b;
+    }
+
+    /**
+     * Stable bottom-up merge sort of idx by key that carries the keys beside the indices, so merging
+     * reads memory in sequence; blocks are sorted in parallel, then merged pairwise (pairs in parallel).
+     */
+    private static void mergeSort(int[] idx, double[] key) {
+        int len = idx.length;
+        double[] keyTmp = new double[len];
         int[] tmp = new int[len];
         int blocks = 1;
         while (blocks < 64 && (long) len / (blocks * 2L) >= (1 << 16)) blocks *= 2;
@@ -295,7 +403,6 @@ public final class SoundingSelection {
         int w0 = Math.max(1, width);
         IntStream.range(0, blocks).parallel().forEach(bl -> {
             int lo = Math.min(len, bl * w0), hi = Math.min(len, lo + w0);
-            for (int i = lo; i < hi; i++) key[i] = depth[idx[i]];
             sortRange(idx, key, tmp, keyTmp, lo, hi);
         });
         int[] src = idx, dst = tmp;

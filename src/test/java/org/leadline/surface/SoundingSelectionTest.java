@@ -132,9 +132,11 @@ class SoundingSelectionTest {
     @Test
     void depthSortIsStableAndOrdered() {
         Random r = new Random(13);
-        for (int len : new int[]{0, 1, 15, 16, 17, 100, 1000, 4097, 140_001, 300_000}) {
+        for (int len : new int[]{0, 1, 15, 16, 17, 100, 1000, 4097, 140_001, 200_000, 300_000}) {
             double[] d = new double[len];
             for (int i = 0; i < len; i++) d[i] = r.nextInt(20);
+            if (len == 300_000) for (int i = 0; i < len; i++) d[i] = i % 3 == 0 ? -0.0 : i % 3 == 1 ? 0.0 : -5 + r.nextGaussian();
+            if (len == 140_001) d[7] = 1e6;   // one far outlier: nearly every sounding in one bucket
             int[] idx = new int[len];
             for (int i = 0; i < len; i++) idx[i] = i;
             SoundingSelection.sortByDepth(idx, d);
