@@ -159,6 +159,18 @@ public final class SoundingsCsvWriter {
         private void digits(long v, int len) {
             int p = n + len;
             n = p;
+            if (v <= Integer.MAX_VALUE) {   // int division by a constant is a multiplication; long may not be
+                int w = (int) v;
+                while (len >= 2) {
+                    int q = w / 100, r = w - 100 * q;
+                    w = q;
+                    b[--p] = PAIRS[2 * r + 1];
+                    b[--p] = PAIRS[2 * r];
+                    len -= 2;
+                }
+                if (len == 1) b[--p] = (byte) ('0' + w % 10);
+                return;
+            }
             while (len >= 2) {
                 int r = (int) (v % 100);
                 v /= 100;
