@@ -185,6 +185,12 @@ public final class ProcessingRun {
             java.util.concurrent.ForkJoinTask<?> csv = pool.submit(() -> {
                 try {
                     SoundingsCsvWriter.write(r.soundings(), csvFile);
+                    // to disk now, beside the other writers: the commit's own force then finds
+                    // little left to do for the largest file (it still forces every file)
+                    try (java.nio.channels.FileChannel ch = java.nio.channels.FileChannel.open(csvFile,
+                            java.nio.file.StandardOpenOption.WRITE)) {
+                        ch.force(true);
+                    }
                 } catch (Throwable t) {
                     csvFailure[0] = t;
                 }

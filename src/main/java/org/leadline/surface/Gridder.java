@@ -128,25 +128,32 @@ public final class Gridder {
         Grid g = spec.newGrid(crs);
         int nx = g.nx, cells = g.cells();
 
-        // pass 1: cell of each usable sounding, and counts per cell
+        // pass 1: cell of each usable sounding (rows in parallel blocks, each entry written by one
+        // task), then the counts per cell in one pass
         int[] cellOf = new int[size];
         int[] start = new int[cells + 1];
-        int noTvu = 0;
-        for (int i = 0; i < size; i++) {
-            cellOf[i] = -1;
-            if (accepted != null && !accepted[i]) continue;
-            double z = depth[i];
-            if (!Double.isFinite(z)) continue;
-            if (needTvu && !(tvu[i] > 0 && tvu[i] < Double.POSITIVE_INFINITY)) {
-                noTvu++;
-                continue;
+        final int block = 1 << 16;
+        int[] noTvuPart = new int[(size + block - 1) / block];
+        IntStream.range(0, noTvuPart.length).parallel().forEach(b -> {
+            int missing = 0;
+            for (int i = b * block, end = Math.min(size, (b + 1) * block); i < end; i++) {
+                cellOf[i] = -1;
+                if (accepted != null && !accepted[i]) continue;
+                double z = depth[i];
+                if (!Double.isFinite(z)) continue;
+                if (needTvu && !(tvu[i] > 0 && tvu[i] < Double.POSITIVE_INFINITY)) {
+                    missing++;
+                    continue;
+                }
+                int c = g.col(e[i]), r = g.row(n[i]);
+                if (c < 0 || r < 0) continue;
+                cellOf[i] = r * nx + c;
             }
-            int c = g.col(e[i]), r = g.row(n[i]);
-            if (c < 0 || r < 0) continue;
-            int k = r * nx + c;
-            cellOf[i] = k;
-            start[k + 1]++;
-        }
+            noTvuPart[b] = missing;
+        });
+        int noTvu = 0;
+        for (int x : noTvuPart) noTvu += x;
+        for (int i = 0; i < size; i++) if (cellOf[i] >= 0) start[cellOf[i] + 1]++;
         for (int k = 0; k < cells; k++) start[k + 1] += start[k];
         int total = start[cells];
         if (total == 0 && noTvu > 0) {
