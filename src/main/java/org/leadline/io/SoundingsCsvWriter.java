@@ -27,8 +27,20 @@ public final class SoundingsCsvWriter {
     static final int BLOCK_ROWS = 32_768;
     /** Blocks formatted at once before they are written (bounds the memory held in text). */
     static final int BATCH_BLOCKS = 16;
-    private static final long[] POW10 = {1, 10, 100, 1000, 10_000, 100_000, 1_000_000, 10_000_000,
-            100_000_000, 1_000_000_000, 10_000_000_000L};
+    private static final long[] POW10 = new long[19];
+    static {
+        POW10[0] = 1;
+        for (int i = 1; i < POW10.length; i++) POW10[i] = POW10[i - 1] * 10;
+    }
+
+    /** "00", "01", ... "99": two digits per division. */
+    private static final byte[] PAIRS = new byte[200];
+    static {
+        for (int i = 0; i < 100; i++) {
+            PAIRS[2 * i] = (byte) ('0' + i / 10);
+            PAIRS[2 * i + 1] = (byte) ('0' + i % 10);
+        }
+    }
 
     private SoundingsCsvWriter() {}
 
@@ -158,10 +170,40 @@ public final class SoundingsCsvWriter {
 
         Ascii integer(long v) {
             if (v < 0) { put((byte) '-'); v = -v; }
-            int k = 0;
-            do { digits[k++] = (byte) ('0' + v % 10); v /= 10; } while (v > 0);
-            while (k > 0) b[n++] = digits[--k];
+            if (v < 10) {
+                b[n++] = (byte) ('0' + v);
+                return this;
+            }
+            int len = 2;
+            while (len < 19 && v >= POW10[len]) len++;
+            digits(v, len);
             return this;
+        }
+
+        /** The last {@code len} decimal digits of v >= 0 (leading zeros included), two at a time. */
+        private void digits(long v, int len) {
+            int p = n + len;
+            n = p;
+            if (v <= Integer.MAX_VALUE) {   // int division by a constant is a multiplication; long may not be
+                int w = (int) v;
+                while (len >= 2) {
+                    int q = w / 100, r = w - 100 * q;
+                    w = q;
+                    b[--p] = PAIRS[2 * r + 1];
+                    b[--p] = PAIRS[2 * r];
+                    len -= 2;
+                }
+                if (len == 1) b[--p] = (byte) ('0' + w % 10);
+                return;
+            }
+            while (len >= 2) {
+                int r = (int) (v % 100);
+                v /= 100;
+                b[--p] = PAIRS[2 * r + 1];
+                b[--p] = PAIRS[2 * r];
+                len -= 2;
+            }
+            if (len == 1) b[--p] = (byte) ('0' + v % 10);
         }
 
         /** Exactly {@link Fixed#append}: half away from zero, NaN empty, no "-0". */
@@ -176,12 +218,7 @@ public final class SoundingsCsvWriter {
             integer(q / scale);
             if (decimals > 0) {
                 put((byte) '.');
-                long f = q % scale;
-                for (int k = decimals - 1; k >= 0; k--) {
-                    b[n + k] = (byte) ('0' + f % 10);
-                    f /= 10;
-                }
-                n += decimals;
+                digits(q % scale, decimals);
             }
             return this;
         }

@@ -38,23 +38,25 @@ public final class XyzWriter {
                 for (int b0 = 0; b0 < blocks; b0 += 32) {
                     int first = b0, last = Math.min(blocks, b0 + 32);
                     java.util.List<byte[]> text = java.util.stream.IntStream.range(first, last).parallel().mapToObj(b -> {
-                        StringBuilder sb = new StringBuilder(96 * 1024);
-                        int r1 = Math.min(grid.ny, (b + 1) * rowsPerBlock);
-                        for (int r = b * rowsPerBlock; r < r1; r++) {
+                        int r0 = b * rowsPerBlock, r1 = Math.min(grid.ny, (b + 1) * rowsPerBlock);
+                        // straight into ASCII bytes, sized for the block (no StringBuilder growth)
+                        Bytes tx = new Bytes(Math.max(64, (r1 - r0) * grid.nx * 48));
+                        for (int r = r0; r < r1; r++) {
                             double y = grid.centreY(r);
                             for (int c = 0; c < grid.nx; c++) {
                                 int i = r * grid.nx + c;
                                 if (Float.isNaN(depth[i])) continue;
-                                fixed3(sb, grid.centreX(c)).append(',');
-                                fixed3(sb, y).append(',');
-                                fixed3(sb, depth[i]).append(',');
-                                fixed3(sb, unc == null ? Double.NaN : unc[i]).append(',');
-                                if (count == null || Float.isNaN(count[i])) sb.append("NaN");
-                                else sb.append(Math.round(count[i]));
-                                sb.append('\n');
+                                tx.ensure(160);
+                                tx.fixed3(grid.centreX(c)).put(',');
+                                tx.fixed3(y).put(',');
+                                tx.fixed3(depth[i]).put(',');
+                                tx.fixed3(unc == null ? Double.NaN : unc[i]).put(',');
+                                if (count == null || Float.isNaN(count[i])) tx.text("NaN");
+                                else tx.integer(Math.round(count[i]));
+                                tx.put('\n');
                             }
                         }
-                        return sb.toString().getBytes(StandardCharsets.UTF_8);
+                        return java.util.Arrays.copyOf(tx.b, tx.n);
                     }).toList();
                     for (byte[] t : text) os.write(t);
                 }
@@ -72,5 +74,58 @@ public final class XyzWriter {
         if (f < 100) sb.append('0');
         if (f < 10) sb.append('0');
         return sb.append(f);
+    }
+
+    /** A growable ASCII buffer writing exactly what {@link #fixed3} and {@code StringBuilder.append(long)} write. */
+    private static final class Bytes {
+        byte[] b;
+        int n;
+
+        Bytes(int capacity) { b = new byte[capacity]; }
+
+        void ensure(int more) {
+            if (n + more > b.length) b = java.util.Arrays.copyOf(b, Math.max(2 * b.length, n + more));
+        }
+
+        Bytes put(char c) {
+            b[n++] = (byte) c;
+            return this;
+        }
+
+        Bytes text(String t) {
+            ensure(t.length());
+            for (int k = 0; k < t.length(); k++) b[n++] = (byte) t.charAt(k);
+            return this;
+        }
+
+        Bytes integer(long v) {
+            if (v < 0) {
+                if (v == Long.MIN_VALUE) return text(Long.toString(v));
+                put('-');
+                v = -v;
+            }
+            int len = 1;
+            for (long t = v; t >= 10; t /= 10) len++;
+            int p = n + len;
+            n = p;
+            do {
+                b[--p] = (byte) ('0' + v % 10);
+                v /= 10;
+            } while (v > 0);
+            return this;
+        }
+
+        /** As {@link XyzWriter#fixed3}: three decimals, half away from zero; NaN, infinities and huge values as Java prints them. */
+        Bytes fixed3(double v) {
+            if (!Double.isFinite(v) || Math.abs(v) >= 9e15 / 1000) return text(Double.toString(v));
+            long m = Math.round(Math.abs(v) * 1000);
+            if (v < 0 && m != 0) put('-');
+            integer(m / 1000).put('.');
+            int f = (int) (m % 1000);
+            b[n++] = (byte) ('0' + f / 100);
+            b[n++] = (byte) ('0' + f / 10 % 10);
+            b[n++] = (byte) ('0' + f % 10);
+            return this;
+        }
     }
 }

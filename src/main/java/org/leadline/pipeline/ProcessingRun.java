@@ -198,31 +198,61 @@ public final class ProcessingRun {
         });
         java.util.concurrent.Future<List<LineageWriter.Input>> hashes = hasher.submit(this::hashInputs);
         hasher.shutdown();
-        // a day too large for the heap is processed in tiles, writing soundings.csv as it goes
+        // a day too large for the heap is processed in tiles (TiledRun), writing soundings.csv as it goes
         boolean tiled = TiledRun.wanted(project);
-        Result r = tiled ? null : compute();
+        Result computed = tiled ? null : compute();
+        Result r;
         try (OutputFolder out = OutputFolder.open(outDir)) {
-            if (tiled) {
-                r = new TiledRun(project, progress).run(out);
-            } else {
-                progress.stage("Writing soundings.csv");
-                SoundingsCsvWriter.write(r.soundings(), out.stage("soundings.csv"));
-            }
-            progress.stage("Writing surface files");
-            GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
-                    List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
-                    tiffMetadata(r));
-            XyzWriter.write(r.grid(), out.stage("surface.xyz"));
-            progress.stage("Writing contours and selection");
-            writeContours(r, out.stage("contours.geojson"));
-            writeSelected(r, out.stage("selected-soundings.geojson"));
+            r = tiled ? new TiledRun(project, progress).run(out) : computed;
+            // soundings.csv (the largest output, formatted on all cores) is written by a task of its
+            // own while this thread writes the surface files, contours, selection and report, which
+            // are mostly single-threaded (Deflate, charts). Every file still goes to the staging
+            // folder and only the commit below gives final names; the task is always waited for,
+            // so nothing writes into the staging folder after it is removed.
+            Path csvFile = out.stage("soundings.csv"); // already written by a tiled run
+            java.util.concurrent.ForkJoinPool pool = java.util.concurrent.ForkJoinTask.inForkJoinPool()
+                    ? java.util.concurrent.ForkJoinTask.getPool() : java.util.concurrent.ForkJoinPool.commonPool();
+            // the task keeps its exception itself: a fork/join task rethrows a copy made by reflection
+            Throwable[] csvFailure = new Throwable[1];
+            java.util.concurrent.ForkJoinTask<?> csv = tiled ? null : pool.submit(() -> {
+                try {
+                    SoundingsCsvWriter.write(computed.soundings(), csvFile);
+                    // to disk now, beside the other writers: the commit's own force then finds
+                    // little left to do for the largest file (it still forces every file)
+                    try (java.nio.channels.FileChannel ch = java.nio.channels.FileChannel.open(csvFile,
+                            java.nio.file.StandardOpenOption.WRITE)) {
+                        ch.force(true);
+                    }
+                } catch (Throwable t) {
+                    csvFailure[0] = t;
+                }
+            });
             Map<String, String> outputs = new LinkedHashMap<>();
-            for (String f : List.of("soundings.csv", "surface.tif", "surface.xyz", "contours.geojson",
-                    "selected-soundings.geojson")) outputs.put(f, "produced");
-            outputs.put("report.html", "produced");
-            progress.stage("Writing report");
-            List<LineageWriter.Input> inputs = await(hashes);
-            org.leadline.report.ReportWriter.write(r, project, inputs, out.stage("report.html"), out);
+            List<LineageWriter.Input> inputs;
+            try {
+                progress.stage("Writing surface files");
+                GeoTiffWriter.write(r.grid(), out.stage("surface.tif"),
+                        List.of(Grid.DEPTH, Grid.UNCERTAINTY, Grid.COUNT, Grid.STDDEV),
+                        tiffMetadata(r));
+                XyzWriter.write(r.grid(), out.stage("surface.xyz"));
+                progress.stage("Writing contours and selection");
+                writeContours(r, out.stage("contours.geojson"));
+                writeSelected(r, out.stage("selected-soundings.geojson"));
+                for (String f : List.of("soundings.csv", "surface.tif", "surface.xyz", "contours.geojson",
+                        "selected-soundings.geojson")) outputs.put(f, "produced");
+                outputs.put("report.html", "produced");
+                progress.stage("Writing report");
+                inputs = await(hashes);
+                org.leadline.report.ReportWriter.write(r, project, inputs, out.stage("report.html"), out);
+                if (csv != null) {
+                    progress.stage("Writing soundings.csv");
+                    csv.join();
+                    rethrow(csvFailure[0]);
+                }
+            } catch (Throwable t) {
+                if (csv != null) csv.quietlyJoin();   // its own failure, if any, is secondary to this one
+                throw t;
+            }
             outputs.put("lineage.json", "produced");
             progress.stage("Writing lineage");
             LineageWriter.write(out.stage("lineage.json"), version(), r.started(), Instant.now().toString(), inputs,
@@ -434,6 +464,15 @@ public final class ProcessingRun {
             if (e.getCause() instanceof RuntimeException re) throw re;
             throw new IOException(e.getCause());
         }
+    }
+
+    /** Rethrows a writing task's failure as it was thrown (nothing when null). */
+    private static void rethrow(Throwable t) throws IOException {
+        if (t == null) return;
+        if (t instanceof IOException io) throw io;
+        if (t instanceof RuntimeException re) throw re;
+        if (t instanceof Error er) throw er;
+        throw new IOException(t);
     }
 
     private String role(Path p) {

@@ -78,11 +78,27 @@ public final class TideZoning {
      * @param lon degrees
      */
     public double level(double t, double lat, double lon) {
-        int z = zoneAt(lat, lon);
-        if (z < 0) return zonesMustCover ? Double.NaN : gauge.level(t);
-        TideZone zone = zones.get(z);
-        return zone.rangeRatio() * gauge.level(t - zone.timeOffset());
+        int z = zoneAt(lat, lon);   // at the sounding's own position, every time
+        if (z < 0 && zonesMustCover) return Double.NaN;
+        // The beams of a ping share its time, and mostly its zone: the gauge is read once per
+        // (time, zone) on each thread. The memo holds the exact value computed below for that pair.
+        double[] m = memo.get();
+        if (m[0] == z && Double.doubleToRawLongBits(m[1]) == Double.doubleToRawLongBits(t)) return m[2];
+        double level;
+        if (z < 0) {
+            level = gauge.level(t);
+        } else {
+            TideZone zone = zones.get(z);
+            level = zone.rangeRatio() * gauge.level(t - zone.timeOffset());
+        }
+        m[0] = z;
+        m[1] = t;
+        m[2] = level;
+        return level;
     }
+
+    /** Per thread: {zone, time, level} of the last gauge reading (zone -2: none yet). */
+    private final ThreadLocal<double[]> memo = ThreadLocal.withInitial(() -> new double[] {-2, Double.NaN, Double.NaN});
 
     /** Why {@link #level} gives NaN at this time and place, or {@link Refusal#NONE}. */
     public Refusal refusal(double t, double lat, double lon) {

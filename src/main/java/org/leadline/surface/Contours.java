@@ -58,9 +58,10 @@ public final class Contours {
     public static List<List<Polyline>> trace(Grid g, String layer, double[] levels) {
         float[] v = g.layer(layer);
         if (v == null) throw new IllegalArgumentException("grid has no layer '" + layer + "'");
-        List<List<Polyline>> out = new ArrayList<>(levels.length);
-        for (double level : levels) out.add(new Tracer(g, v, level).run());
-        return out;
+        // each level traced on its own (a Tracer reads the grid and writes only its own state), on
+        // all cores; the list keeps the levels' order
+        return java.util.stream.IntStream.range(0, levels.length).parallel()
+                .mapToObj(k -> new Tracer(g, v, levels[k]).run()).toList();
     }
 
     // edges of a square: 0 top (TL-TR), 1 right (TR-BR), 2 bottom (BL-BR), 3 left (TL-BL)

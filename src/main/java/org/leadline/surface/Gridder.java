@@ -174,25 +174,34 @@ public final class Gridder {
         int size = depth.length;
         boolean needTvu = m == Method.WEIGHTED || m == Method.CUBE;
         int cells = wnx * wny;
-        // pass 1: cell of each usable sounding, and counts per cell
+        // pass 1: cell of each usable sounding (rows in parallel blocks, each entry written by one
+        // task), then the counts per cell in one pass
         int[] cellOf = cellOfOut != null ? cellOfOut : new int[size];
         int[] start = new int[cells + 1];
-        int noTvu = 0;
-        for (int i = 0; i < size; i++) {
-            cellOf[i] = -1;
-            if (accepted != null && !accepted[i]) continue;
-            double z = depth[i];
-            if (!Double.isFinite(z)) continue;
-            if (needTvu && !(tvu[i] > 0 && tvu[i] < Double.POSITIVE_INFINITY)) {
-                noTvu++;
-                continue;
+        final int block = 1 << 16;
+        int[] noTvuPart = new int[(size + block - 1) / block];
+        IntStream.range(0, noTvuPart.length).parallel().forEach(b -> {
+            int missing = 0;
+            for (int i = b * block, end = Math.min(size, (b + 1) * block); i < end; i++) {
+                cellOf[i] = -1;
+                if (accepted != null && !accepted[i]) continue;
+                double z = depth[i];
+                if (!Double.isFinite(z)) continue;
+                if (needTvu && !(tvu[i] > 0 && tvu[i] < Double.POSITIVE_INFINITY)) {
+                    missing++;
+                    continue;
+                }
+                int gc = g.col(e[i]), gr = g.row(n[i]);
+                if (gc < 0 || gr < 0) continue;
+                int c = gc - c0, r = gr - r0;
+                if (c < 0 || r < 0 || c >= wnx || r >= wny) continue;
+                cellOf[i] = r * wnx + c;
             }
-            int c = g.col(e[i]) - c0, r = g.row(n[i]) - r0;
-            if (c < 0 || r < 0 || c >= wnx || r >= wny || c + c0 < 0 || r + r0 < 0) continue;
-            int k = r * wnx + c;
-            cellOf[i] = k;
-            start[k + 1]++;
-        }
+            noTvuPart[b] = missing;
+        });
+        int noTvu = 0;
+        for (int x : noTvuPart) noTvu += x;
+        for (int i = 0; i < size; i++) if (cellOf[i] >= 0) start[cellOf[i] + 1]++;
         for (int k = 0; k < cells; k++) start[k + 1] += start[k];
         int total = start[cells];
         if (total == 0 && noTvu > 0) {

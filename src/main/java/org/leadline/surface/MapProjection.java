@@ -272,8 +272,69 @@ public final class MapProjection {
         }
     }
 
-    /** Median of the finite values; for longitudes, unwraps across the antimeridian first. */
+    /**
+     * Median of the finite values; for longitudes, unwraps across the antimeridian first. A swath
+     * day repeats each ping's position for all its beams, so the values are first collapsed into
+     * runs of equal neighbours and only the distinct values are sorted (with their counts); the
+     * result is exactly that of sorting every value ({@link #medianBySort}), to which data without
+     * such repeats fall back.
+     */
     static double median(double[] v, boolean longitude) {
+        int n = v.length;
+        double[] runValue = new double[Math.max(16, n / 8)];
+        int[] runCount = new int[runValue.length];
+        int runs = 0, finite = 0;
+        long last = 0;
+        for (int i = 0; i < n; i++) {
+            double x = v[i];
+            if (!Double.isFinite(x)) continue;
+            finite++;
+            long bits = Double.doubleToRawLongBits(x);
+            if (runs > 0 && bits == last) { runCount[runs - 1]++; continue; }
+            if (runs == runValue.length) return medianBySort(v, longitude);   // few repeats: sort everything
+            runValue[runs] = x;
+            runCount[runs++] = 1;
+            last = bits;
+        }
+        if (finite == 0) return Double.NaN;
+        if (longitude) for (int r = 0; r < runs; r++) runValue[r] = wrap(runValue[r]);
+        // distinct values in Arrays.sort order (-0.0 before 0.0) and how many of each
+        double[] distinct = Arrays.copyOf(runValue, runs);
+        Arrays.parallelSort(distinct);
+        int d = 0;
+        for (int r = 0; r < runs; r++) {
+            if (d == 0 || Double.compare(distinct[r], distinct[d - 1]) != 0) distinct[d++] = distinct[r];
+        }
+        distinct = Arrays.copyOf(distinct, d);
+        long[] count = new long[d];
+        for (int r = 0; r < runs; r++) count[Arrays.binarySearch(distinct, runValue[r])] += runCount[r];
+        int cut = 0;   // first distinct value of the data's inside (longitudes): as medianBySort's cut
+        if (longitude) {
+            double gap = distinct[0] + 360 - distinct[d - 1];
+            for (int j = 1; j < d; j++) {
+                if (distinct[j] - distinct[j - 1] > gap) { gap = distinct[j] - distinct[j - 1]; cut = j; }
+            }
+        }
+        // the sorted (unwrapped) order is distinct[cut..d) then distinct[0..cut) + 360
+        int h = finite / 2;
+        double hi = nth(distinct, count, cut, h);
+        double m = finite % 2 == 1 ? hi : 0.5 * (nth(distinct, count, cut, h - 1) + hi);
+        return longitude ? wrap(m) : m;
+    }
+
+    /** The k-th (from 0) value of the sorted, unwrapped order described in {@link #median}. */
+    private static double nth(double[] distinct, long[] count, int cut, long k) {
+        int d = distinct.length;
+        for (int j = 0; j < d; j++) {
+            int at = (cut + j) % d;
+            if (k < count[at]) return at < cut ? distinct[at] + 360 : distinct[at];
+            k -= count[at];
+        }
+        throw new IllegalStateException("median position beyond the data");
+    }
+
+    /** The median by sorting every finite value (the definition {@link #median} reproduces). */
+    static double medianBySort(double[] v, boolean longitude) {
         double[] f = Arrays.stream(v).filter(Double::isFinite).toArray();
         if (f.length == 0) return Double.NaN;
         if (longitude) {

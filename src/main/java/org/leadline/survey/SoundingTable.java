@@ -62,7 +62,11 @@ public final class SoundingTable {
 
     private static double[] nan(int n) {
         double[] a = new double[n];
-        java.util.Arrays.fill(a, Double.NaN);
+        // a swath day's columns are tens of megabytes each: filled in parallel blocks
+        int block = 1 << 18;
+        if (n < 2 * block) java.util.Arrays.fill(a, Double.NaN);
+        else java.util.stream.IntStream.range(0, (n + block - 1) / block).parallel()
+                .forEach(b -> java.util.Arrays.fill(a, b * block, Math.min(n, (b + 1) * block), Double.NaN));
         return a;
     }
 

@@ -139,10 +139,13 @@ public final class TimeSeries {
      * @return the value, or NaN outside the record or inside a too-long gap
      */
     public double at(int column, double t) {
-        if (refusal(t) != Refusal.NONE) return Double.NaN;
+        // refusal(t) inlined, so that the binary search runs once (same tests, same result)
+        int n = time.length;
+        if (Double.isNaN(t) || n == 0 || t < time[0] || t > time[n - 1]) return Double.NaN;
         double[] v = columns[column];
         int i = lower(t);
         if (time[i] == t) return v[i];
+        if (time[i + 1] - time[i] > maxGap) return Double.NaN;
         double f = (t - time[i]) / (time[i + 1] - time[i]);
         return v[i] + f * (v[i + 1] - v[i]);
     }

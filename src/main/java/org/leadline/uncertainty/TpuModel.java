@@ -5,6 +5,7 @@ import org.leadline.survey.Vessel;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.stream.IntStream;
 
 /**
  * Total propagated uncertainty (TPU) of single-beam and swath soundings: the total vertical
@@ -94,19 +95,23 @@ public final class TpuModel {
         checkLength(soundings, heave, "heave");
         checkLength(soundings, soundSpeedAtTransducer, "soundSpeedAtTransducer");
         checkLength(soundings, tideZoneSigma, "tideZoneSigma");
-        double[] v = new double[N], a = new double[N], c = new double[N];
-        for (int i = 0; i < soundings.size; i++) {
-            double z = rayDepth(soundings, i, heave);
-            if (Double.isNaN(z)) {
-                soundings.tvu[i] = Double.NaN;
-                soundings.thu[i] = Double.NaN;
-                continue;
+        int n = soundings.size;
+        // rows in fixed blocks on all cores: each row is written by one task, the same bits for any thread count
+        IntStream.range(0, (n + BLOCK - 1) / BLOCK).parallel().forEach(b -> {
+            double[] v = new double[N], a = new double[N], c = new double[N];
+            for (int i = b * BLOCK, end = Math.min(n, (b + 1) * BLOCK); i < end; i++) {
+                double z = rayDepth(soundings, i, heave);
+                if (Double.isNaN(z)) {
+                    soundings.tvu[i] = Double.NaN;
+                    soundings.thu[i] = Double.NaN;
+                    continue;
+                }
+                terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
+                        soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
+                soundings.tvu[i] = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
+                soundings.thu[i] = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
             }
-            terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
-                    soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
-            soundings.tvu[i] = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
-            soundings.thu[i] = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
-        }
+        });
     }
 
     /** The breakdown of sounding i of a reduced table (same inputs as {@link #compute}); null arrays allowed. */
@@ -152,58 +157,108 @@ public final class TpuModel {
         return tally().add(soundings, heave, soundSpeedAtTransducer, tideZoneSigma).summary();
     }
 
-    /** An empty running {@link #summarize}: add tables (chunks of a day, in row order), then ask for the summary. */
+    /** An empty running {@link #summarize}: add consecutive chunks of a day in row order, then ask for the summary. */
     public Tally tally() { return new Tally(); }
 
     /**
-     * Running sums of {@link #summarize}. Adding the chunks of a table in row order gives exactly
-     * the summary of the whole table (the same sums in the same order).
+     * Running sums of {@link #summarize}. Sums are kept by fixed blocks of {@link #BLOCK} rows of the
+     * whole day (each block summed in row order, on any core), folded in block order; a block cut by
+     * a chunk boundary is carried on into the next chunk. So adding the chunks of a table gives
+     * exactly the bits of the whole table's summary, for any thread count and any chunking.
      */
     public final class Tally {
-        private final double[] v = new double[N], a = new double[N], c = new double[N];
-        private final double[] sv = new double[N], sh = new double[N];
-        private long count;
-        private double sumTvu, maxTvu, sumThu, maxThu;
+        private final Partial total = new Partial();
+        private Partial open;
+        private long rows;
 
         private Tally() {}
 
-        /** Adds the accepted soundings of a table (columns as for {@link #summarize}). */
+        /** Adds the next rows of the day (the accepted soundings of a table; columns as for {@link #summarize}). */
         public Tally add(SoundingTable soundings, double[] heave, double[] soundSpeedAtTransducer, double[] tideZoneSigma) {
             checkLength(soundings, heave, "heave");
             checkLength(soundings, soundSpeedAtTransducer, "soundSpeedAtTransducer");
             checkLength(soundings, tideZoneSigma, "tideZoneSigma");
-            for (int i = 0; i < soundings.size; i++) {
-                if (!soundings.accepted(i)) continue;
-                double z = rayDepth(soundings, i, heave);
-                if (Double.isNaN(z)) continue;
-                terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
-                        soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
-                for (int k = 0; k < N; k++) {
-                    sv[k] += v[k] * v[k];
-                    sh[k] += a[k] * a[k] + c[k] * c[k];
-                }
-                double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
-                double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
-                sumTvu += tvu;
-                sumThu += thu;
-                maxTvu = Math.max(maxTvu, tvu);
-                maxThu = Math.max(maxThu, thu);
-                count++;
+            int n = soundings.size;
+            if (n == 0) return this;
+            long first = rows;
+            // segments of the chunk, one per block of the whole day
+            List<int[]> seg = new ArrayList<>();
+            for (int i = 0; i < n; ) {
+                int end = (int) Math.min(n, ((first + i) / BLOCK + 1) * BLOCK - first);
+                seg.add(new int[] {i, end});
+                i = end;
             }
+            Partial[] parts = new Partial[seg.size()];
+            Partial carried = open;
+            IntStream.range(0, parts.length).parallel().forEach(k -> {
+                Partial p = k == 0 && carried != null ? carried : new Partial();
+                double[] v = new double[N], a = new double[N], c = new double[N];
+                for (int i = seg.get(k)[0], end = seg.get(k)[1]; i < end; i++) {
+                    if (!soundings.accepted(i)) continue;
+                    double z = rayDepth(soundings, i, heave);
+                    if (Double.isNaN(z)) continue;
+                    terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
+                            soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
+                    for (int q = 0; q < N; q++) {
+                        p.sv[q] += v[q] * v[q];
+                        p.sh[q] += a[q] * a[q] + c[q] * c[q];
+                    }
+                    double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
+                    double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
+                    p.sumTvu += tvu;
+                    p.sumThu += thu;
+                    p.maxTvu = Math.max(p.maxTvu, tvu);
+                    p.maxThu = Math.max(p.maxThu, thu);
+                    p.count++;
+                }
+                parts[k] = p;
+            });
+            open = null;
+            for (int k = 0; k < parts.length; k++) {
+                if ((first + seg.get(k)[1]) % BLOCK == 0) total.fold(parts[k]);
+                else open = parts[k]; // the day's block goes on in the next chunk (only the last segment)
+            }
+            rows += n;
             return this;
         }
 
         /** The summary of everything added. */
         public TpuSummary summary() {
+            Partial t = new Partial();
+            t.fold(total);
+            if (open != null) t.fold(open);
+            long count = t.count;
             List<TpuSummary.Entry> entries = new ArrayList<>();
             for (TpuComponent comp : TpuComponent.values()) {
                 int k = comp.ordinal();
-                entries.add(new TpuSummary.Entry(comp, count == 0 ? Double.NaN : Math.sqrt(sv[k] / count),
-                        count == 0 ? Double.NaN : Math.sqrt(sh[k] / count)));
+                entries.add(new TpuSummary.Entry(comp, count == 0 ? Double.NaN : Math.sqrt(t.sv[k] / count),
+                        count == 0 ? Double.NaN : Math.sqrt(t.sh[k] / count)));
             }
-            return new TpuSummary((int) Math.min(Integer.MAX_VALUE, count), entries, count == 0 ? Double.NaN : sumTvu / count,
-                    count == 0 ? Double.NaN : maxTvu, count == 0 ? Double.NaN : sumThu / count,
-                    count == 0 ? Double.NaN : maxThu);
+            return new TpuSummary((int) Math.min(Integer.MAX_VALUE, count), entries,
+                    count == 0 ? Double.NaN : t.sumTvu / count, count == 0 ? Double.NaN : t.maxTvu,
+                    count == 0 ? Double.NaN : t.sumThu / count, count == 0 ? Double.NaN : t.maxThu);
+        }
+    }
+
+    /** Rows per parallel block of {@link #compute} and {@link #summarize} (fixed: results do not depend on the cores). */
+    private static final int BLOCK = 65_536;
+
+    /** Sums of one block of rows in {@link #summarize}. */
+    private static final class Partial {
+        final double[] sv = new double[N], sh = new double[N];
+        long count;
+        double sumTvu, maxTvu, sumThu, maxThu;
+
+        void fold(Partial p) {
+            for (int k = 0; k < N; k++) {
+                sv[k] += p.sv[k];
+                sh[k] += p.sh[k];
+            }
+            sumTvu += p.sumTvu;
+            sumThu += p.sumThu;
+            maxTvu = Math.max(maxTvu, p.maxTvu);
+            maxThu = Math.max(maxThu, p.maxThu);
+            count += p.count;
         }
     }
 

@@ -55,7 +55,29 @@ public final class SoundSpeedProfile {
             cumTime[i] = cumTime[i - 1] + layerTime(this.depth[i - 1], this.speed[i - 1],
                     this.depth[i], this.speed[i], this.depth[i]);
         }
+        // segment look-up table: cells of equal depth over the samples, each naming a nearby segment
+        int n = this.depth.length;
+        if (n >= 3) {
+            int cells = Math.min(4 * n, 1 << 16);
+            double d0 = this.depth[0], scale = cells / (this.depth[n - 1] - d0);
+            int[] g = new int[cells];
+            int i = 0;
+            for (int c = 0; c < cells; c++) {
+                double z = d0 + c / scale;
+                while (i < n - 2 && this.depth[i + 1] <= z) i++;
+                g[c] = i;
+            }
+            this.guess = Double.isFinite(scale) ? g : null;
+            this.guessScale = scale;
+        } else {
+            this.guess = null;
+            this.guessScale = 0;
+        }
     }
+
+    /** Per depth cell a segment index near the answer of {@link #segment} (null for two samples or fewer). */
+    private final int[] guess;
+    private final double guessScale;
 
     /** A profile of one constant speed, m/s. */
     public static SoundSpeedProfile constant(double speed) {
@@ -144,6 +166,25 @@ public final class SoundSpeedProfile {
 
     /** Index i with depth[i] &lt;= z &lt; depth[i+1]; z inside the sampled range. */
     private int segment(double z) {
+        // from the look-up table's guess, a few steps to the largest i <= n - 2 with depth[i] <= z
+        // (what the binary search below gives for strictly increasing depths; zero and NaN are left
+        // to the search, which orders -0.0 before 0.0)
+        if (guess != null && z != 0 && z == z) {
+            int c = (int) ((z - depth[0]) * guessScale);
+            if (c >= 0 && c < guess.length) {
+                int i = guess[c], last = depth.length - 2;
+                for (int step = 0; step < 8; step++) {
+                    if (depth[i] > z) {
+                        if (i == 0) break;
+                        i--;
+                    } else if (i < last && depth[i + 1] <= z) {
+                        i++;
+                    } else {
+                        return i;
+                    }
+                }
+            }
+        }
         int i = Arrays.binarySearch(depth, z);
         if (i >= 0) return Math.min(i, depth.length - 2);
         return -i - 2;

@@ -52,4 +52,35 @@ class XyzWriterTest {
         assertThatThrownBy(() -> XyzWriter.write(g, dir.resolve("x.xyz")))
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("depth");
     }
+
+    @Test
+    void sameTextAsTheStringFormatOnARandomGrid() throws IOException {
+        // the byte formatter must write what fixed3 and StringBuilder.append(long) write, row for row
+        java.util.SplittableRandom r = new java.util.SplittableRandom(4);
+        int nx = 700, ny = 240;
+        Grid g = new Grid(612_345.5, 5_400_000.25, 0.5, nx, ny, null);
+        float[] d = new float[nx * ny], u = new float[nx * ny], c = new float[nx * ny];
+        for (int i = 0; i < d.length; i++) {
+            d[i] = r.nextInt(7) == 0 ? Float.NaN : (float) (r.nextDouble(-3, 80) * (r.nextInt(9) == 0 ? 1e-4 : 1));
+            u[i] = r.nextInt(11) == 0 ? Float.NaN : (float) r.nextDouble(0, 2);
+            c[i] = r.nextInt(13) == 0 ? Float.NaN : r.nextInt(100_000);
+        }
+        g.putLayer(Grid.DEPTH, d).putLayer(Grid.UNCERTAINTY, u).putLayer(Grid.COUNT, c);
+        StringBuilder sb = new StringBuilder(XyzWriter.HEADER).append('\n');
+        for (int row = 0; row < ny; row++) {
+            for (int col = 0; col < nx; col++) {
+                int i = row * nx + col;
+                if (Float.isNaN(d[i])) continue;
+                XyzWriter.fixed3(sb, g.centreX(col)).append(',');
+                XyzWriter.fixed3(sb, g.centreY(row)).append(',');
+                XyzWriter.fixed3(sb, d[i]).append(',');
+                XyzWriter.fixed3(sb, u[i]).append(',');
+                if (Float.isNaN(c[i])) sb.append("NaN"); else sb.append(Math.round(c[i]));
+                sb.append('\n');
+            }
+        }
+        Path f = dir.resolve("random.xyz");
+        XyzWriter.write(g, f);
+        assertThat(Files.readString(f)).isEqualTo(sb.toString());
+    }
 }

@@ -216,4 +216,29 @@ class MapProjectionTest {
         assertThat(MapProjection.median(new double[] {179.0, -179.0, 179.5}, true)).isCloseTo(179.5, within(1e-12));
         assertThat(MapProjection.median(new double[] {1, 2, 3, 4}, false)).isEqualTo(2.5);
     }
+
+    @Test
+    void medianOfRepeatedPositionsIsTheMedianOfEveryValue() {
+        // runs of equal values (a ping's position repeated for its beams) take the counted path; it must
+        // give exactly the value of sorting everything, NaN, -0.0 and the antimeridian included
+        java.util.Random r = new java.util.Random(3);
+        for (int trial = 0; trial < 40; trial++) {
+            int n = 1 + r.nextInt(5000);
+            double[] lat = new double[n], lon = new double[n];
+            double centre = trial % 4 == 0 ? 179.95 : -30 + 60 * r.nextDouble();
+            for (int i = 0; i < n; ) {
+                int run = 1 + r.nextInt(trial % 3 == 0 ? 2 : 300);
+                double la = trial % 5 == 0 ? (r.nextBoolean() ? 0.0 : -0.0) : -0.5 + r.nextDouble();
+                double lo = centre + 0.2 * r.nextGaussian();
+                if (r.nextInt(50) == 0) { la = Double.NaN; lo = Double.NaN; }
+                if (trial % 7 == 0) lo = Math.round(lo * 10) / 10.0;   // repeats that are not neighbours
+                for (int k = 0; k < run && i < n; k++, i++) { lat[i] = la; lon[i] = lo; }
+            }
+            assertThat(Double.doubleToRawLongBits(MapProjection.median(lat, false)))
+                    .isEqualTo(Double.doubleToRawLongBits(MapProjection.medianBySort(lat, false)));
+            assertThat(Double.doubleToRawLongBits(MapProjection.median(lon, true)))
+                    .isEqualTo(Double.doubleToRawLongBits(MapProjection.medianBySort(lon, true)));
+        }
+        assertThat(MapProjection.median(new double[] {Double.NaN}, false)).isNaN();
+    }
 }

@@ -81,6 +81,46 @@ class SoundingSelectionTest {
     }
 
     @Test
+    void sameSelectionAsThePlainGreedyRule() {
+        // the cover grid and the parallel sort are shortcuts: the result must be exactly that of the
+        // rule in the class comment, applied literally (stable sort, test against every selected one)
+        Random r = new Random(21);
+        for (int trial = 0; trial < 4; trial++) {
+            int np = 30_000 + trial * 20_000;
+            double radius = 2 + trial;
+            double[] e = new double[np], n = new double[np], d = new double[np];
+            boolean[] acc = new boolean[np];
+            for (int i = 0; i < np; i++) {
+                // half the positions on multiples of radius / 8: soundings on the squares' edges
+                boolean onEdge = i % 2 == 0;
+                double x = 120 * r.nextDouble(), y = 80 * r.nextDouble();
+                if (onEdge) { x = Math.floor(x / (radius / 8)) * (radius / 8); y = Math.floor(y / (radius / 8)) * (radius / 8); }
+                e[i] = 400_000 + x;
+                n[i] = 5_500_000 + y;
+                d[i] = Math.round((20 + 2 * r.nextGaussian()) * 100) / 100.0;   // ties at 1 cm
+                acc[i] = r.nextInt(20) != 0;
+            }
+            assertThat(SoundingSelection.select(e, n, d, acc, radius)).containsExactly(plainGreedy(e, n, d, acc, radius));
+        }
+    }
+
+    private static int[] plainGreedy(double[] e, double[] n, double[] d, boolean[] acc, double radius) {
+        java.util.List<Integer> order = new java.util.ArrayList<>();
+        for (int i = 0; i < d.length; i++) if (acc[i]) order.add(i);
+        order.sort(java.util.Comparator.comparingDouble((Integer i) -> d[i]));   // List.sort is stable
+        java.util.List<Integer> sel = new java.util.ArrayList<>();
+        for (int i : order) {
+            boolean near = false;
+            for (int s : sel) {
+                double dx = e[s] - e[i], dy = n[s] - n[i];
+                if (dx * dx + dy * dy <= radius * radius) { near = true; break; }
+            }
+            if (!near) sel.add(i);
+        }
+        return sel.stream().mapToInt(Integer::intValue).toArray();
+    }
+
+    @Test
     void chainShowsWhatIsNotGuaranteed() {
         // A (10 m) at 0, B (11 m) at 0.9, C (12 m) at 1.8, radius 1: A and C selected; B, shoaler than C,
         // lies within the radius of C (worked by hand in this test)
@@ -92,9 +132,11 @@ class SoundingSelectionTest {
     @Test
     void depthSortIsStableAndOrdered() {
         Random r = new Random(13);
-        for (int len : new int[]{0, 1, 15, 16, 17, 100, 1000, 4097}) {
+        for (int len : new int[]{0, 1, 15, 16, 17, 100, 1000, 4097, 140_001, 200_000, 300_000}) {
             double[] d = new double[len];
             for (int i = 0; i < len; i++) d[i] = r.nextInt(20);
+            if (len == 300_000) for (int i = 0; i < len; i++) d[i] = i % 3 == 0 ? -0.0 : i % 3 == 1 ? 0.0 : -5 + r.nextGaussian();
+            if (len == 140_001) d[7] = 1e6;   // one far outlier: nearly every sounding in one bucket
             int[] idx = new int[len];
             for (int i = 0; i < len; i++) idx[i] = i;
             SoundingSelection.sortByDepth(idx, d);

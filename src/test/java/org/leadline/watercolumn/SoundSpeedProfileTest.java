@@ -50,4 +50,36 @@ class SoundSpeedProfileTest {
         // below the last sample the speed is held constant
         assertThat(p.travelTime(80, 100)).isCloseTo(20 / 1486.0, within(1e-15));
     }
+
+    @Test
+    void speedAtIsLinearInterpolationInTheRightSegment() {
+        // the segment look-up table is a shortcut: every value must be the interpolation in the
+        // segment found by a plain scan (largest sample depth <= z), bit for bit; regular 1 m casts,
+        // clustered samples (long walks: binary search) and depths on the samples and on zero
+        java.util.Random r = new java.util.Random(11);
+        for (int trial = 0; trial < 6; trial++) {
+            int n = 3 + r.nextInt(300);
+            double[] z = new double[n], c = new double[n];
+            double d = trial % 2 == 0 ? -2 : 0.5;
+            for (int k = 0; k < n; k++) {
+                z[k] = d;
+                c[k] = 1480 + 40 * r.nextDouble();
+                d += trial < 3 ? 1.0 : (k < n / 2 ? 1e-3 * (1 + r.nextDouble()) : 5 * r.nextDouble() + 0.01);
+            }
+            SoundSpeedProfile p = new SoundSpeedProfile(z, c, List.of());
+            for (int q = 0; q < 20_000; q++) {
+                double at = q % 10 == 0 ? z[r.nextInt(n)] : q % 97 == 0 ? 0.0 : z[0] + (z[n - 1] - z[0]) * r.nextDouble();
+                double expected;
+                if (at <= z[0]) expected = c[0];
+                else if (at >= z[n - 1]) expected = c[n - 1];
+                else {
+                    int i = 0;
+                    while (i < n - 2 && z[i + 1] <= at) i++;
+                    double f = (at - z[i]) / (z[i + 1] - z[i]);
+                    expected = c[i] + f * (c[i + 1] - c[i]);
+                }
+                assertThat(Double.doubleToRawLongBits(p.speedAt(at))).as("z %s", at).isEqualTo(Double.doubleToRawLongBits(expected));
+            }
+        }
+    }
 }
