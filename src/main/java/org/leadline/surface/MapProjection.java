@@ -55,6 +55,8 @@ public final class MapProjection {
     private final String code;
     private final MathTransform toProjected;
     private final MathTransform toGeographic;
+    /** Krüger-series fast path for WGS84 UTM zones (checked against SIS when built); null otherwise. */
+    private final KruegerUtm fast;
 
     private MapProjection(CoordinateReferenceSystem crs) throws FactoryException {
         this.crs = crs;
@@ -70,7 +72,44 @@ public final class MapProjection {
         } catch (NoninvertibleTransformException e) {
             throw new IllegalArgumentException(code + " has no inverse projection: " + e.getMessage(), e);
         }
+        this.fast = checkedSeries(code, toProjected);
     }
+
+    /**
+     * The Krüger series for a WGS84 UTM code (EPSG 32601-32660 north, 32701-32760 south), if it
+     * agrees with SIS to 1 micrometre at points across the zone and beyond it (latitudes -80 to
+     * 84, up to 14 degrees from the central meridian); null for other codes or any disagreement.
+     */
+    private static KruegerUtm checkedSeries(String code, MathTransform sis) {
+        if (!code.matches("EPSG:32[67](0[1-9]|[1-5][0-9]|60)")) return null;
+        int zone = Integer.parseInt(code.substring(8));
+        KruegerUtm k = new KruegerUtm(zone, code.charAt(7) == '7');
+        double lon0 = 6.0 * zone - 183.0;
+        double[] p = new double[2], q = new double[2];
+        for (double lat : new double[] {-80, -45.5, -10.25, -0.001, 0, 0.001, 10.25, 45.5, 66.6, 84}) {
+            for (double dl : new double[] {-14, -9, -3.01, -0.5, 0, 0.5, 2.99, 9, 14}) {
+                p[0] = lat;
+                p[1] = lon0 + dl;
+                try {
+                    sis.transform(p, 0, p, 0, 1);
+                } catch (TransformException e) {
+                    return null;
+                }
+                if (!k.forward(lat, lon0 + dl, q) || !(Math.abs(q[0] - p[0]) < 1e-6 && Math.abs(q[1] - p[1]) < 1e-6)) {
+                    return null;
+                }
+            }
+        }
+        return k;
+    }
+
+    /** {@link #forward} by SIS alone (tests compare the series with it). */
+    void forwardBySis(double[] lat, double[] lon, double[] easting, double[] northing) {
+        run(toProjected, lat, lon, easting, northing);
+    }
+
+    /** Whether the bulk forward projection uses the Krüger series (a WGS84 UTM zone). */
+    boolean usesSeries() { return fast != null; }
 
     /**
      * The WGS84 UTM zone (or UPS cap) for data at these positions, chosen at the median latitude and
@@ -195,7 +234,36 @@ public final class MapProjection {
      * @param northing out: northings, m
      */
     public void forward(double[] lat, double[] lon, double[] easting, double[] northing) {
-        run(toProjected, lat, lon, easting, northing);
+        if (fast == null) {
+            run(toProjected, lat, lon, easting, northing);
+            return;
+        }
+        int n = lat.length;
+        if (lon.length != n || easting.length < n || northing.length < n) {
+            throw new IllegalArgumentException("coordinate arrays differ in length: " + lat.length + ", " + lon.length
+                    + " in, " + easting.length + ", " + northing.length + " out");
+        }
+        int chunks = (n + CHUNK - 1) / CHUNK;
+        IntStream range = IntStream.range(0, chunks);
+        (chunks > 4 ? range.parallel() : range).forEach(k -> {
+            double[] q = new double[2];
+            for (int i = k * CHUNK, end = Math.min(n, (k + 1) * CHUNK); i < end; i++) {
+                if (fast.forward(lat[i], lon[i], q)) {
+                    easting[i] = q[0];
+                    northing[i] = q[1];
+                } else { // far from the zone, a pole or not a number: SIS decides
+                    q[0] = lat[i];
+                    q[1] = lon[i];
+                    try {
+                        toProjected.transform(q, 0, q, 0, 1);
+                    } catch (TransformException e) {
+                        q[0] = q[1] = Double.NaN;
+                    }
+                    easting[i] = q[0];
+                    northing[i] = q[1];
+                }
+            }
+        });
     }
 
     /**
