@@ -17,6 +17,20 @@ public final class Select {
         int n = to - from;
         if (n <= 0) return Double.NaN;
         int mid = from + n / 2;
+        if (n <= 16) {
+            // small slices (the cleaning's moving windows, most grid cells): insertion sort beats
+            // partitioning; the same two middle values, so the same median
+            for (int i = from + 1; i < to; i++) {
+                double v = a[i];
+                int j = i - 1;
+                while (j >= from && a[j] > v) {
+                    a[j + 1] = a[j];
+                    j--;
+                }
+                a[j + 1] = v;
+            }
+            return (n & 1) == 1 ? a[mid] : 0.5 * (a[mid - 1] + a[mid]);
+        }
         double hi = kth(a, from, to, mid);
         if ((n & 1) == 1) return hi;
         // after selection every value left of mid is <= a[mid]: the lower middle is their maximum
