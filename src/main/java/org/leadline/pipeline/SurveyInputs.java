@@ -87,20 +87,9 @@ public final class SurveyInputs {
             progress.fraction(++done / (double) files);
         }
         for (Path f : project.nmea()) {
-            NmeaLog log = NmeaReader.read(f);
-            if (log.problems().total() > 0) warnings.add(f.getFileName() + ": " + log.problems().summary());
-            String line = f.getFileName().toString().replaceFirst("\\.[^.]*$", "");
-            PingTable t = log.toPingTable(line);
-            if (t.size == 0) {
-                throw new org.leadline.io.InputException(f, "expected depth sentences (DBT or DPT) after a time-bearing"
-                        + " sentence (ZDA, RMC, GGA), found none; problems: " + log.problems().oneLine());
-            }
-            NavigationSeries own = nav;
-            if (own == null && log.navigationTimes().length >= 2) {
-                own = NavigationSeries.of(log.navigationTimes(), log.navigationLat(), log.navigationLon());
-            }
-            tables.add(t);
-            merged.add(SensorMerge.merge(t, own, att, vessel));
+            NmeaPings np = nmea(f, nav, warnings);
+            tables.add(np.pings());
+            merged.add(SensorMerge.merge(np.pings(), np.navigation(), att, vessel));
             progress.fraction(++done / (double) files);
         }
         if (tables.isEmpty()) {
@@ -164,6 +153,29 @@ public final class SurveyInputs {
         warnings.addAll(Plausibility.check(day.heaveWarning(), project.casts(), profiles, vessel.transducerDraft(),
                 vessel.sounderSetSpeed()));
         return new SurveyInputs(vessel, null, null, null, casts, profiles, zoning, warnings, day);
+    }
+
+    /** The pings of an NMEA log (line named after the file) and the navigation their merge uses. */
+    record NmeaPings(PingTable pings, NavigationSeries navigation) {}
+
+    /**
+     * Reads an NMEA log: its depth sentences as pings, its problems as a warning, and as navigation
+     * the separate record when there is one, else the log's own position sentences (null: none).
+     */
+    static NmeaPings nmea(Path f, NavigationSeries nav, List<String> warnings) throws IOException {
+        NmeaLog log = NmeaReader.read(f);
+        if (log.problems().total() > 0) warnings.add(f.getFileName() + ": " + log.problems().summary());
+        String line = f.getFileName().toString().replaceFirst("\\.[^.]*$", "");
+        PingTable t = log.toPingTable(line);
+        if (t.size == 0) {
+            throw new org.leadline.io.InputException(f, "expected depth sentences (DBT or DPT) after a time-bearing"
+                    + " sentence (ZDA, RMC, GGA), found none; problems: " + log.problems().oneLine());
+        }
+        NavigationSeries own = nav;
+        if (own == null && log.navigationTimes().length >= 2) {
+            own = NavigationSeries.of(log.navigationTimes(), log.navigationLat(), log.navigationLon());
+        }
+        return new NmeaPings(t, own);
     }
 
     /** The vessel file with the project's overrides (draft, set speed); defaults with a warning when there is none. */

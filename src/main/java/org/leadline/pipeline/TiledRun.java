@@ -8,8 +8,6 @@ import org.leadline.cleaning.EditJournal;
 import org.leadline.io.AttitudeCsvReader;
 import org.leadline.io.EditJournalFile;
 import org.leadline.io.NavigationCsvReader;
-import org.leadline.io.NmeaLog;
-import org.leadline.io.NmeaReader;
 import org.leadline.io.PingChunks;
 import org.leadline.io.PingFiles;
 import org.leadline.io.SoundingsCsvWriter;
@@ -148,17 +146,9 @@ final class TiledRun {
             sources.add(s);
         }
         for (Path f : project.nmea()) {
-            NmeaLog log = NmeaReader.read(f);
-            if (log.problems().total() > 0) warnings.add(f.getFileName() + ": " + log.problems().summary());
-            String line = f.getFileName().toString().replaceFirst("\\.[^.]*$", "");
-            PingTable t = log.toPingTable(line);
-            if (t.size == 0) {
-                throw new org.leadline.io.InputException(f, "expected depth sentences (DBT or DPT) after a time-bearing"
-                        + " sentence (ZDA, RMC, GGA), found none; problems: " + log.problems().oneLine());
-            }
-            Source s = new Source(f, t);
-            s.navigation = nav != null ? nav : log.navigationTimes().length >= 2
-                    ? NavigationSeries.of(log.navigationTimes(), log.navigationLat(), log.navigationLon()) : null;
+            SurveyInputs.NmeaPings np = SurveyInputs.nmea(f, nav, warnings);
+            Source s = new Source(f, np.pings());
+            s.navigation = np.navigation();
             sources.add(s);
         }
         if (sources.isEmpty()) {

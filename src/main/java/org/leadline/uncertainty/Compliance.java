@@ -123,12 +123,7 @@ public final class Compliance {
             int n = soundings.size;
             if (n == 0) return this;
             long first = rows;
-            List<int[]> seg = new ArrayList<>();
-            for (int i = 0; i < n; ) {
-                int end = (int) Math.min(n, ((first + i) / BLOCK + 1) * BLOCK - first);
-                seg.add(new int[] {i, end});
-                i = end;
-            }
+            List<int[]> seg = Compliance.blockSegments(first, n, BLOCK);
             int[][] pc = new int[seg.size()][];
             double[][] px = new double[seg.size()][];
             int[] carriedC = openC;
@@ -199,6 +194,21 @@ public final class Compliance {
             }
             return new ComplianceSummary(order, total, pct(tTvu, total), pct(tThu, total), pct(tBoth, total), bands);
         }
+    }
+
+    /**
+     * The rows [from, to) of a chunk of n rows starting at row {@code first} of the day, cut where
+     * the day's fixed blocks of {@code block} rows begin: the units of the deterministic block-wise
+     * sums of the running tallies (here and in {@link TpuModel.Tally}).
+     */
+    static List<int[]> blockSegments(long first, int n, int block) {
+        List<int[]> seg = new ArrayList<>();
+        for (int i = 0; i < n; ) {
+            int end = (int) Math.min(n, ((first + i) / block + 1) * block - first);
+            seg.add(new int[] {i, end});
+            i = end;
+        }
+        return seg;
     }
 
     private static double pct(int k, int n) {

@@ -181,13 +181,7 @@ public final class TpuModel {
             int n = soundings.size;
             if (n == 0) return this;
             long first = rows;
-            // segments of the chunk, one per block of the whole day
-            List<int[]> seg = new ArrayList<>();
-            for (int i = 0; i < n; ) {
-                int end = (int) Math.min(n, ((first + i) / BLOCK + 1) * BLOCK - first);
-                seg.add(new int[] {i, end});
-                i = end;
-            }
+            List<int[]> seg = Compliance.blockSegments(first, n, BLOCK);
             Partial[] parts = new Partial[seg.size()];
             Partial carried = open;
             IntStream.range(0, parts.length).parallel().forEach(k -> {
