@@ -91,9 +91,24 @@ public final class SensorMerge {
         double navShift = navigation != null ? latency : 0;
         boolean[] fromSeries = new boolean[4];
         if (attitude != null) for (int q = 0; q < 4; q++) fromSeries[q] = attitude.has(q);
+        // rows in blocks that each start at a new ping time, on all cores: a row copies only the row
+        // before it within its own ping, so every row gets the same values for any thread count
+        int[] starts = pingBlocks(pings, 1 << 16);
+        final NavigationSeries trk = track;
+        final double shift = navShift;
+        java.util.stream.IntStream.range(0, starts.length - 1).parallel().forEach(blk ->
+                mergeRows(pings, navigation, attitude, latency, speedWindow, trk, shift, fromSeries, m,
+                        starts[blk], starts[blk + 1]));
+        return m;
+    }
+
+    /** Merges rows [from, to) of {@link #merge}; {@code from} starts a ping time. */
+    private static void mergeRows(PingTable pings, NavigationSeries navigation, AttitudeSeries attitude, double latency,
+                                  double speedWindow, NavigationSeries track, double navShift, boolean[] fromSeries,
+                                  MergedPings m, int from, int to) {
         double[] p = new double[2];
         double[] sc = new double[2];
-        for (int i = 0; i < n; i++) {
+        for (int i = from; i < to; i++) {
             double t = pings.time[i];
             if (i > 0 && t == pings.time[i - 1] && sameOwnValues(pings, i, navigation == null, attitude)) {
                 copyRow(m, i - 1, i); // beams of one ping: same sensor state
@@ -125,7 +140,19 @@ public final class SensorMerge {
             if (!attOk && reason == Reason.NONE.code) reason = Reason.NO_ATTITUDE.code;
             m.reason[i] = reason;
         }
-        return m;
+    }
+
+    /** Row indices cutting the table into blocks of about {@code size} rows, each starting at a new ping time. */
+    static int[] pingBlocks(PingTable p, int size) {
+        int[] out = new int[p.size / size + 2];
+        int k = 0;
+        out[k++] = 0;
+        for (int i = size; i < p.size; i += size) {
+            while (i < p.size && p.time[i] == p.time[i - 1]) i++;
+            if (i < p.size && i > out[k - 1]) out[k++] = i;
+        }
+        if (out[k - 1] != p.size) out[k++] = p.size;
+        return java.util.Arrays.copyOf(out, k);
     }
 
     private static boolean sameOwnValues(PingTable p, int i, boolean ownPositions, AttitudeSeries att) {
