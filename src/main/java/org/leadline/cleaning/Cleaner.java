@@ -345,18 +345,10 @@ public final class Cleaner {
             if (Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i])) cand[m++] = i;
             else if (core == null || core[i]) untested++;
         }
-        LongIntMap ids = new LongIntMap(Math.max(16, m / 8));
         int[] cid = new int[m];
-        long[] cellKeys = new long[Math.max(16, m / 8)];
-        for (int q = 0; q < m; q++) {
-            int i = cand[q];
-            long key = cellKey(cellIndex(s.easting[i], cell), cellIndex(s.northing[i], cell));
-            int id = ids.putIfAbsent(key, ids.size());
-            if (id == cellKeys.length) cellKeys = Arrays.copyOf(cellKeys, cellKeys.length * 2);
-            cellKeys[id] = key;
-            cid[q] = id;
-        }
-        int cells = ids.size();
+        CellIndex ids = CellIndex.of(s, cand, m, cell, cid);
+        int cells = ids.cells();
+        long[] cellKeys = ids.keys();
         int[] start = new int[cells + 1];
         int[] order = countingSort(cand, cid, m, cells, start);
         cid = null;
@@ -409,7 +401,7 @@ public final class Cleaner {
                 int np = 0;
                 for (int dx = -1; dx <= 1; dx++) {
                     for (int dy = -1; dy <= 1; dy++) {
-                        int o = ids.get(cellKey(cx + dx, cy + dy));
+                        int o = ids.find(cx + dx, cy + dy);
                         if (o >= 0 && ok[o]) {
                             px[np] = ce[o] - e0;
                             py[np] = cn[o] - n0;
@@ -440,6 +432,78 @@ public final class Cleaner {
         restoreSupported(s, rejectIt, cfg.spikeFloor(), cfg.spikeKTvu());
         for (int i = 0; i < n; i++) if (rejectIt[i]) reject(s, i, Reason.SURFACE, counts);
         return untested;
+    }
+
+    /**
+     * Numbers the surface filter's cells: densely (row by row over the candidates' extent, on all
+     * cores) when that extent has at most four cells per candidate, as on any survey; by a hash map
+     * of the cells in order of first appearance otherwise (scattered data). Results do not depend
+     * on the numbering: every cell is computed from its own soundings in row order.
+     */
+    static final class CellIndex {
+        private final LongIntMap map;   // sparse numbering, or null
+        private final long[] keys;
+        private final int cells, cx0, cy0, ncx, ncy;
+
+        private CellIndex(LongIntMap map, long[] keys, int cells, int cx0, int cy0, int ncx, int ncy) {
+            this.map = map;
+            this.keys = keys;
+            this.cells = cells;
+            this.cx0 = cx0;
+            this.cy0 = cy0;
+            this.ncx = ncx;
+            this.ncy = ncy;
+        }
+
+        /** Numbers the cells of candidates cand[0, m) of s; fills cid with each candidate's cell. */
+        static CellIndex of(SoundingTable s, int[] cand, int m, double cell, int[] cid) {
+            int[] bounds = java.util.stream.IntStream.range(0, (m + 65_535) / 65_536).parallel().mapToObj(b -> {
+                int[] r = {Integer.MAX_VALUE, Integer.MIN_VALUE, Integer.MAX_VALUE, Integer.MIN_VALUE};
+                for (int q = b * 65_536, end = Math.min(m, (b + 1) * 65_536); q < end; q++) {
+                    int x = cellIndex(s.easting[cand[q]], cell), y = cellIndex(s.northing[cand[q]], cell);
+                    r[0] = Math.min(r[0], x); r[1] = Math.max(r[1], x);
+                    r[2] = Math.min(r[2], y); r[3] = Math.max(r[3], y);
+                }
+                return r;
+            }).reduce(new int[] {Integer.MAX_VALUE, Integer.MIN_VALUE, Integer.MAX_VALUE, Integer.MIN_VALUE},
+                    (a, b) -> new int[] {Math.min(a[0], b[0]), Math.max(a[1], b[1]), Math.min(a[2], b[2]), Math.max(a[3], b[3])});
+            long ncx = (long) bounds[1] - bounds[0] + 1, ncy = (long) bounds[3] - bounds[2] + 1;
+            if (m > 0 && ncx * ncy <= Math.max(4L * m, 1 << 16)) {
+                int nx = (int) ncx, ny = (int) ncy, x0 = bounds[0], y0 = bounds[2];
+                java.util.stream.IntStream.range(0, (m + 65_535) / 65_536).parallel().forEach(b -> {
+                    for (int q = b * 65_536, end = Math.min(m, (b + 1) * 65_536); q < end; q++) {
+                        int x = cellIndex(s.easting[cand[q]], cell), y = cellIndex(s.northing[cand[q]], cell);
+                        cid[q] = (y - y0) * nx + (x - x0);
+                    }
+                });
+                long[] keys = new long[nx * ny];
+                for (int y = 0; y < ny; y++) for (int x = 0; x < nx; x++) keys[y * nx + x] = cellKey(x0 + x, y0 + y);
+                return new CellIndex(null, keys, nx * ny, x0, y0, nx, ny);
+            }
+            LongIntMap ids = new LongIntMap(Math.max(16, m / 8));
+            long[] keys = new long[Math.max(16, m / 8)];
+            for (int q = 0; q < m; q++) {
+                int i = cand[q];
+                long key = cellKey(cellIndex(s.easting[i], cell), cellIndex(s.northing[i], cell));
+                int id = ids.putIfAbsent(key, ids.size());
+                if (id == keys.length) keys = Arrays.copyOf(keys, keys.length * 2);
+                keys[id] = key;
+                cid[q] = id;
+            }
+            return new CellIndex(ids, keys, ids.size(), 0, 0, 0, 0);
+        }
+
+        int cells() { return cells; }
+
+        /** Cell keys ({@link #cellKey}) by cell number. */
+        long[] keys() { return keys; }
+
+        /** The number of cell (cx, cy), or -1 when no candidate lies in it (sparse) or it is outside (dense). */
+        int find(int cx, int cy) {
+            if (map != null) return map.get(cellKey(cx, cy));
+            int x = cx - cx0, y = cy - cy0;
+            return x < 0 || y < 0 || x >= ncx || y >= ncy ? -1 : y * ncx + x;
+        }
     }
 
     /** Radius within which a flagged sounding looks for soundings of other pings that agree with it, m. */
