@@ -167,14 +167,8 @@ public final class Cleaner {
         }
         // number the series: (line, beam); the whole line for a single beam
         int[] beamKey = seriesBeamKeys(s, Math.toRadians(cfg.spikeAngleBand()));
-        LongIntMap ids = new LongIntMap(1024);
         int[] gid = new int[m];
-        for (int k = 0; k < m; k++) {
-            int i = cand[k];
-            long key = ((long) (s.line[i] + 1) << 32) | (beamKey[i] & 0xffffffffL);
-            gid[k] = ids.putIfAbsent(key, ids.size());
-        }
-        int groups = ids.size();
+        int groups = seriesIds(s, cand, m, beamKey, gid);
         int[] start = new int[groups + 1];
         int[] order = countingSort(cand, gid, m, groups, start);
         gid = null;
@@ -289,6 +283,43 @@ public final class Cleaner {
         }
         out[k++] = groups;
         return Arrays.copyOf(out, k);
+    }
+
+    /**
+     * Numbers the series (line, beam key) of candidates cand[0, m) into gid; returns their count.
+     * Densely (line x beam-key range, on all cores) when beam keys are small, as with beam numbers;
+     * by a hash map in order of first appearance otherwise. The numbering does not change any
+     * result: each series is tested on its own soundings in row order.
+     */
+    static int seriesIds(SoundingTable s, int[] cand, int m, int[] beamKey, int[] gid) {
+        int lines = s.lineNames().size() + 1; // line -1 (none) too
+        int[] range = java.util.stream.IntStream.range(0, (m + 65_535) / 65_536).parallel().mapToObj(b -> {
+            int[] r = {Integer.MAX_VALUE, Integer.MIN_VALUE};
+            for (int q = b * 65_536, end = Math.min(m, (b + 1) * 65_536); q < end; q++) {
+                r[0] = Math.min(r[0], beamKey[cand[q]]);
+                r[1] = Math.max(r[1], beamKey[cand[q]]);
+            }
+            return r;
+        }).reduce(new int[] {Integer.MAX_VALUE, Integer.MIN_VALUE},
+                (a, b) -> new int[] {Math.min(a[0], b[0]), Math.max(a[1], b[1])});
+        long width = (long) range[1] - range[0] + 1;
+        if (m > 0 && width * lines <= Math.max(4L * m, 1 << 16)) {
+            int w = (int) width, k0 = range[0];
+            java.util.stream.IntStream.range(0, (m + 65_535) / 65_536).parallel().forEach(b -> {
+                for (int q = b * 65_536, end = Math.min(m, (b + 1) * 65_536); q < end; q++) {
+                    int i = cand[q];
+                    gid[q] = (s.line[i] + 1) * w + (beamKey[i] - k0);
+                }
+            });
+            return w * lines;
+        }
+        LongIntMap ids = new LongIntMap(1024);
+        for (int k = 0; k < m; k++) {
+            int i = cand[k];
+            long key = ((long) (s.line[i] + 1) << 32) | (beamKey[i] & 0xffffffffL);
+            gid[k] = ids.putIfAbsent(key, ids.size());
+        }
+        return ids.size();
     }
 
     /**
