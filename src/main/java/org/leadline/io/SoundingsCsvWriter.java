@@ -23,10 +23,10 @@ import java.util.stream.IntStream;
  */
 public final class SoundingsCsvWriter {
     public static final String HEADER = "time,line,beam,lat,lon,easting,northing,depth,tvu,thu,status,reason";
-    /** Rows per formatted block (about 4 MB of text). */
-    static final int BLOCK_ROWS = 32_768;
+    /** Rows per formatted block: about 0.5 MB of text, under half a G1 region, so these buffers are ordinary young objects (larger ones are "humongous" and each starts a concurrent collection once the heap is full of soundings). */
+    static final int BLOCK_ROWS = 4096;
     /** Blocks formatted at once before they are written (bounds the memory held in text). */
-    static final int BATCH_BLOCKS = 16;
+    static final int BATCH_BLOCKS = 128;
     private static final long[] POW10 = new long[19];
     static {
         POW10[0] = 1;

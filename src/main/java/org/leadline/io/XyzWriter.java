@@ -31,7 +31,7 @@ public final class XyzWriter {
         float[] unc = grid.layer(Grid.UNCERTAINTY);
         float[] count = grid.layer(Grid.COUNT);
         // rows formatted in parallel blocks and written in row order: the same bytes for any thread count
-        int rowsPerBlock = Math.max(1, 65_536 / Math.max(1, grid.nx)), blocks = (grid.ny + rowsPerBlock - 1) / rowsPerBlock;
+        int rowsPerBlock = Math.max(1, 16_384 / Math.max(1, grid.nx)) /* text under 1 MB: not a G1 humongous object */, blocks = (grid.ny + rowsPerBlock - 1) / rowsPerBlock;
         AtomicFiles.write(out, tmp -> {
             try (java.io.OutputStream os = Files.newOutputStream(tmp)) {
                 os.write((HEADER + "\n").getBytes(StandardCharsets.UTF_8));
