@@ -248,14 +248,23 @@ public final class Cleaner {
                     if (dt != 0) work[ns++] = (dScratch[q + h] - dScratch[q]) / dt;
                 }
                 double slope = ns > 0 ? median(work, ns) : 0;
-                for (int q = 0; q < c; q++) resid[q] = dScratch[q] - slope * tScratch[q];
-                System.arraycopy(resid, 0, work, 0, c);
-                double fit = median(work, c);
-                double dev = Math.abs(ld[p] - fit);
-                if (dev <= floor) continue; // cannot exceed any threshold: skip the MAD
                 int i = order[from + p];
                 double thr = floor;
                 if (Double.isFinite(tvu[i])) thr = Math.max(thr, kTvu * tvu[i]);
+                double rLo = Double.POSITIVE_INFINITY, rHi = Double.NEGATIVE_INFINITY;
+                for (int q = 0; q < c; q++) {
+                    double r = dScratch[q] - slope * tScratch[q];
+                    resid[q] = r;
+                    if (r < rLo) rLo = r;
+                    if (r > rHi) rHi = r;
+                }
+                // the median lies between the least and the greatest residual: when both are well
+                // within the threshold of this sounding it cannot be a spike (most soundings), and
+                // the median need not be found (a 0.1 % margin keeps rounding on the safe side)
+                if (rLo >= ld[p] - 0.999 * thr && rHi <= ld[p] + 0.999 * thr) continue;
+                System.arraycopy(resid, 0, work, 0, c);
+                double fit = median(work, c);
+                double dev = Math.abs(ld[p] - fit);
                 if (dev <= thr) continue;
                 for (int q = 0; q < c; q++) work[q] = Math.abs(resid[q] - fit);
                 double mad = median(work, c);
