@@ -102,6 +102,28 @@ class TiledRunTest {
     }
 
     @Test
+    void badRowInALateChunkStopsWithTheLineAndLeavesNoOutputs(@TempDir Path dir) throws Exception {
+        Path day = dir.resolve("day");
+        SwathDayGenerator.write(day, 20_000, 64, 3, true, false);
+        Path csv = day.resolve("pings.csv");
+        List<String> rows = new java.util.ArrayList<>(Files.readAllLines(csv));
+        int bad = rows.size() - 100;                       // a row in the last chunk
+        String[] f = rows.get(bad).split(",", -1);
+        f[1] = "95.0";                                     // latitude beyond 90
+        rows.set(bad, String.join(",", f));
+        Files.write(csv, rows);
+        Project p = ProjectReader.read(day.resolve("project.yaml"));
+        Path out = dir.resolve("out");
+        assertThatThrownBy(() -> tiled(Map.of("leadline.tiles.chunk-rows", "3000"),
+                () -> new ProcessingRun(p, Progress.NONE).run(out)))
+                .isInstanceOf(InputException.class)
+                .hasMessageContaining("pings.csv:" + (bad + 1) + ":2: expected a latitude in [-90, 90] degrees, found 95.0");
+        try (var files = Files.list(out)) {
+            assertThat(files.toList()).as("nothing written or half-written").isEmpty();
+        }
+    }
+
+    @Test
     void rowEstimatesForTheChoiceOfTiles(@TempDir Path dir) throws Exception {
         SwathDayGenerator.write(dir, 50_000, 64, 5, true, true);
         int rows = PingFiles.read(dir.resolve("pings.csv"), false).size;
