@@ -84,19 +84,6 @@ public final class Cleaner {
     }
 
     /**
-     * The along-track spike test of {@link #clean} (Hampel filter per line and beam series), flags
-     * only: nothing is rejected until {@link #spatial} has looked for other passes that confirm a
-     * flagged sounding. Series never cross lines, so a chunk of whole lines gives the same flags as
-     * the whole day.
-     *
-     * @param spike receives true for each flagged sounding
-     * @return accepted soundings that could not be tested (series too short)
-     */
-    public static int spikeFlags(SoundingTable s, CleaningSettings cfg, boolean[] spike) {
-        return spikeFilter(s, cfg, spike);
-    }
-
-    /**
      * The spatial part of {@link #clean}: feature protection of the spike flags, the spike
      * rejections, then the surface filter with its own feature protection. Every decision about a
      * sounding looks only at soundings within {@link #spatialReach} of it, so a tile processed
@@ -155,8 +142,16 @@ public final class Cleaner {
 
     // ------------------------------------------------------------------ along-track spike filter
 
-    /** Returns the number of accepted soundings that could not be tested (series too short). */
-    static int spikeFilter(SoundingTable s, CleaningSettings cfg, boolean[] spike) {
+    /**
+     * The along-track spike test of {@link #clean} (Hampel filter per line and beam series), flags
+     * only: nothing is rejected until {@link #spatial} has looked for other passes that confirm a
+     * flagged sounding. Series never cross lines, so a chunk of whole lines gives the same flags as
+     * the whole day.
+     *
+     * @param spike receives true for each flagged sounding
+     * @return accepted soundings that could not be tested (series too short)
+     */
+    public static int spikeFlags(SoundingTable s, CleaningSettings cfg, boolean[] spike) {
         int n = s.size;
         int m = 0;
         int[] cand = new int[n];

@@ -37,8 +37,9 @@ public final class PingFiles {
      */
     public static long estimateRows(Path file) {
         try (var in = java.nio.file.Files.newInputStream(file)) {
-            byte[] b = in.readNBytes(1 << 20);
-            if (BinaryPingReader.isBinary(file)) {
+            boolean binary = BinaryPingReader.isBinary(file);
+            byte[] b = in.readNBytes(binary ? 14 : 1 << 20);
+            if (binary) {
                 if (b.length < 14) return 0;
                 return java.nio.ByteBuffer.wrap(b, 6, 8).order(java.nio.ByteOrder.LITTLE_ENDIAN).getLong();
             }

@@ -31,19 +31,6 @@ public final class Plausibility {
     /** Largest plausible gap between a cast and the set speed, as temperature, deg C (issue 8). */
     public static final double MAX_TEMPERATURE_GAP = 5.0;
 
-    /** Warning about heave values beyond {@link #MAX_HEAVE_M}, or null. */
-    public static String heave(double[] heave) {
-        int count = 0;
-        double worst = 0;
-        for (double h : heave) {
-            if (Math.abs(h) > MAX_HEAVE_M) {
-                count++;
-                if (Math.abs(h) > Math.abs(worst)) worst = h;
-            }
-        }
-        return heave(worst, count, heave.length);
-    }
-
     /** The heave warning for {@code count} of {@code total} pings beyond {@link #MAX_HEAVE_M}, the worst being {@code worst}; null for none. */
     static String heave(double worst, long count, long total) {
         if (count == 0) return null;
@@ -84,18 +71,11 @@ public final class Plausibility {
 
     private static String name(Path f) { return f == null || f.getFileName() == null ? "cast" : f.getFileName().toString(); }
 
-    /** Every finding for a loaded survey. */
-    static List<String> check(double[] heave, List<Path> castFiles, List<DerivedProfile> profiles, double draft,
-                              double setSpeed) {
-        return check(heave(heave), castFiles, profiles, draft, setSpeed);
-    }
-
-    /** As {@link #check(double[], List, List, double, double)}, the heave warning already made (or null). */
+    /** Every finding for a loaded survey, the heave warning ({@link DaySummary#heaveWarning}, or null) first. */
     static List<String> check(String heaveWarning, List<Path> castFiles, List<DerivedProfile> profiles, double draft,
                               double setSpeed) {
         List<String> out = new ArrayList<>();
-        String h = heaveWarning;
-        if (h != null) out.add(h);
+        if (heaveWarning != null) out.add(heaveWarning);
         for (int k = 0; k < profiles.size(); k++) {
             String c = castAgainstSetSpeed(castFiles.get(k), profiles.get(k), draft, setSpeed);
             if (c != null) out.add(c);

@@ -87,6 +87,7 @@ final class TiledRun {
     private AttitudeSeries att;
     private final List<Source> sources = new ArrayList<>();
     private SurveyInputs context;
+    private TpuModel tpuModel;
     private List<SoundSpeedProfile> profiles;
     private Reducer.BeamTracer[] tracers;
     private MapProjection projection;
@@ -185,8 +186,9 @@ final class TiledRun {
         if (profiles.isEmpty()) profiles.add(SoundSpeedProfile.constant(vessel.sounderSetSpeed()));
         progress.stage("Building ray tables");
         tracers = ProcessingRun.buildTracers(day, vessel, profiles);
-        projection = configured("crs", () -> MapProjection.parse(set.crs(), day.latitudes(), day.longitudes()));
-        CleaningSettings cs = configured("cleaning", () -> CleaningSettings.fromMap(set.cleaning()));
+        tpuModel = new TpuModel(vessel);
+        projection = ProcessingRun.configured("crs", () -> MapProjection.parse(set.crs(), day.latitudes(), day.longitudes()));
+        CleaningSettings cs = ProcessingRun.configured("cleaning", () -> CleaningSettings.fromMap(set.cleaning()));
         S44Order order = S44Order.parse(set.order());
 
         List<Edit> effective = null;
@@ -409,8 +411,7 @@ final class TiledRun {
 
             // last pass: the soundings again, with their final statuses, to soundings.csv and the tallies
             progress.stage("Writing soundings.csv");
-            TpuModel tpu = new TpuModel(vessel);
-            TpuModel.Tally tpuTally = tpu.tally();
+            TpuModel.Tally tpuTally = tpuModel.tally();
             Compliance.Tally compliance = new Compliance.Tally(order, Compliance.DEFAULT_BANDS);
             long[] byReasonAll = new long[256], castUse = new long[Math.max(1, context.casts.size())];
             long[] accepted = new long[1];
@@ -457,7 +458,7 @@ final class TiledRun {
         SoundingTable s = new Reducer(vessel, false).reduce(p, merged, tracers, choice, level, projection::forward);
         double[] cT = new double[s.size], zs = new double[s.size];
         ProcessingRun.transducerTerms(s, m.heave, choice.castA(), profiles, vessel, context.waterLevel, cT, zs);
-        new TpuModel(vessel).compute(s, m.heave, cT, zs);
+        tpuModel.compute(s, m.heave, cT, zs);
         return new Reduced(s, m.heave, cT, zs);
     }
 
@@ -587,10 +588,6 @@ final class TiledRun {
 
     private void checkCancel() {
         if (progress.cancelled()) throw new Progress.Cancelled();
-    }
-
-    private static <T> T configured(String key, java.util.function.Supplier<T> make) {
-        return ProcessingRun.configured(key, make);
     }
 
     private static void deleteTree(Path dir) throws IOException {

@@ -254,11 +254,7 @@ public final class MapProjection {
                 } else { // far from the zone, a pole or not a number: SIS decides
                     q[0] = lat[i];
                     q[1] = lon[i];
-                    try {
-                        toProjected.transform(q, 0, q, 0, 1);
-                    } catch (TransformException e) {
-                        q[0] = q[1] = Double.NaN;
-                    }
+                    transformPoint(toProjected, q);
                     easting[i] = q[0];
                     northing[i] = q[1];
                 }
@@ -325,16 +321,21 @@ public final class MapProjection {
         });
     }
 
+    /** One point in place; NaN where the transform refuses it (outside its domain). */
+    private static void transformPoint(MathTransform mt, double[] p) {
+        try {
+            mt.transform(p, 0, p, 0, 1);
+        } catch (TransformException e) {
+            p[0] = p[1] = Double.NaN;
+        }
+    }
+
     private static void pointByPoint(MathTransform mt, double[] a, double[] b, int start, int m, double[] buf) {
         double[] p = new double[2];
         for (int i = 0; i < m; i++) {
             p[0] = a[start + i];
             p[1] = b[start + i];
-            try {
-                mt.transform(p, 0, p, 0, 1);
-            } catch (TransformException e) {
-                p[0] = p[1] = Double.NaN;
-            }
+            transformPoint(mt, p);
             buf[2 * i] = p[0];
             buf[2 * i + 1] = p[1];
         }
