@@ -246,17 +246,20 @@ public final class Cleaner {
                 int i = order[from + p];
                 double thr = floor;
                 if (Double.isFinite(tvu[i])) thr = Math.max(thr, kTvu * tvu[i]);
-                double rLo = Double.POSITIVE_INFINITY, rHi = Double.NEGATIVE_INFINITY;
+                double nearLo = ld[p] - 0.999 * thr, nearHi = ld[p] + 0.999 * thr;
+                int below = 0, above = 0;
                 for (int q = 0; q < c; q++) {
                     double r = dScratch[q] - slope * tScratch[q];
                     resid[q] = r;
-                    if (r < rLo) rLo = r;
-                    if (r > rHi) rHi = r;
+                    if (r < nearLo) below++;
+                    if (r > nearHi) above++;
                 }
-                // the median lies between the least and the greatest residual: when both are well
-                // within the threshold of this sounding it cannot be a spike (most soundings), and
-                // the median need not be found (a 0.1 % margin keeps rounding on the safe side)
-                if (rLo >= ld[p] - 0.999 * thr && rHi <= ld[p] + 0.999 * thr) continue;
+                // the median (middle value, or mean of the two middle values, of the sorted
+                // residuals) lies within [nearLo, nearHi] when at most (c-1)/2 residuals fall below it and
+                // at most c-1-c/2 above: then this sounding is within its threshold of the fit and
+                // cannot be a spike (most soundings), and the median need not be found. The 0.1 %
+                // margin keeps rounding on the safe side.
+                if (below <= (c - 1) / 2 && above <= c - 1 - c / 2) continue;
                 System.arraycopy(resid, 0, work, 0, c);
                 double fit = median(work, c);
                 double dev = Math.abs(ld[p] - fit);

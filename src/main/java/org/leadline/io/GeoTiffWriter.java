@@ -7,47 +7,32 @@ import org.opengis.referencing.crs.CoordinateReferenceSystem;
 import org.opengis.referencing.crs.ProjectedCRS;
 import org.opengis.util.FactoryException;
 
-import javax.imageio.IIOImage;
-import javax.imageio.ImageIO;
-import javax.imageio.ImageWriteParam;
-import javax.imageio.ImageWriter;
-import javax.imageio.plugins.tiff.BaselineTIFFTagSet;
-import javax.imageio.plugins.tiff.GeoTIFFTagSet;
-import javax.imageio.plugins.tiff.TIFFDirectory;
-import javax.imageio.plugins.tiff.TIFFField;
-import javax.imageio.plugins.tiff.TIFFTag;
-import javax.imageio.plugins.tiff.TIFFTagSet;
-import javax.imageio.stream.ImageOutputStream;
-import java.awt.Transparency;
-import java.awt.color.ColorSpace;
-import java.awt.image.BandedSampleModel;
-import java.awt.image.BufferedImage;
-import java.awt.image.ComponentColorModel;
-import java.awt.image.DataBuffer;
-import java.awt.image.DataBufferFloat;
-import java.awt.image.Raster;
-import java.awt.image.WritableRaster;
 import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.ByteOrder;
 import java.nio.channels.FileChannel;
 import java.nio.file.StandardOpenOption;
-import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
-import java.util.Iterator;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
+import java.util.stream.IntStream;
+import java.util.zip.Deflater;
 
 /**
  * Writes a {@link Grid} as a GeoTIFF (OGC 19-008r4, GeoTIFF 1.1): one float32 band per layer, NaN
  * no-data, the projected CRS by its EPSG code, pixel-is-area, plus the two private tags GDAL reads
  * for the no-data value (42113, GDAL_NODATA) and the band names (42112, GDAL_METADATA).
  *
- * <p>The TIFF itself (IFD layout, strips, Deflate compression, BitsPerSample, SampleFormat) is written
- * by the JDK's ImageIO TIFF plug-in; this class adds only the GeoTIFF and GDAL fields. Why not Apache
- * SIS's GeoTIFF writer, and the exact tags, are in docs/formats/geotiff.md. Classic TIFF: at most
- * 4 GiB per file.
+ * <p>The TIFF container follows TIFF 6.0 (Adobe, 1992): classic big-endian, pixel-interleaved
+ * strips of about {@link #STRIP_BYTES} bytes, each compressed by zlib (compression 8, "Adobe
+ * Deflate", what GDAL writes for DEFLATE). Strips are compressed side by side on all cores and
+ * written in order, so the file is the same for any number of threads. Why this class writes the
+ * container itself (the JDK's ImageIO TIFF writer compresses one strip after another, and Apache
+ * SIS's writer lacks no-data and band names), and the exact tags, are in docs/formats/geotiff.md.
+ * Classic TIFF: at most 4 GiB per file.
  *
  * <pre>{@code
  * GeoTiffWriter.write(grid, out.resolve("surface.tif"),
@@ -67,6 +52,13 @@ public final class GeoTiffWriter {
 
     /** Largest classic (32-bit offset) TIFF, less room for the tags. */
     private static final long MAX_BYTES = 0xFFFF_FFFFL - (1 << 20);
+
+    /** Uncompressed bytes per strip aimed at (whole rows; at least one row). */
+    static final int STRIP_BYTES = 1 << 18;
+    /** Strips compressed at once before they are written (bounds the memory held in compressed strips). */
+    private static final int BATCH_STRIPS = 64;
+    /** zlib level: 9 took 4x as long as 5 for no smaller a file (docs/formats/geotiff.md). */
+    static final int DEFLATE_LEVEL = 5;
 
     /**
      * Writes the grid atomically (temporary file in the same folder, then moved into place).
@@ -95,95 +87,77 @@ public final class GeoTiffWriter {
         }
         int epsg = epsgCode(grid.crs());
         String crsName = grid.crs().getName().getCode();
-
-        BandedSampleModel sm = new BandedSampleModel(DataBuffer.TYPE_FLOAT, grid.nx, grid.ny, banks.length);
-        WritableRaster raster = Raster.createWritableRaster(sm, new DataBufferFloat(banks, grid.nx * grid.ny), null);
-        // The ImageIO TIFF writer takes images, not bare rasters; the colour model is only a wrapper
-        // (a generic n-component space) and the photometric tag is set explicitly below.
-        ColorSpace space = banks.length == 1 ? ColorSpace.getInstance(ColorSpace.CS_GRAY) : new Samples(banks.length);
-        BufferedImage image = new BufferedImage(new ComponentColorModel(space, false, false, Transparency.OPAQUE,
-                DataBuffer.TYPE_FLOAT), raster, false, null);
-        TIFFDirectory dir = directory(grid, names, metadata, epsg, crsName);
+        int nx = grid.nx, ny = grid.ny, nb = banks.length;
+        int rowBytes = nx * nb * Float.BYTES;
+        int rowsPerStrip = Math.max(1, Math.min(ny, STRIP_BYTES / rowBytes));
+        int strips = (ny + rowsPerStrip - 1) / rowsPerStrip;
 
         AtomicFiles.write(out, tmp -> {
-            Iterator<ImageWriter> it = ImageIO.getImageWritersByFormatName("tiff");
-            if (!it.hasNext()) throw new IOException("this Java runtime has no ImageIO TIFF writer (needs Java 9 or later)");
-            ImageWriter writer = it.next();
-            try (ImageOutputStream ios = ImageIO.createImageOutputStream(tmp.toFile())) {
-                writer.setOutput(ios);
-                ImageWriteParam param = writer.getDefaultWriteParam();
-                param.setCompressionMode(ImageWriteParam.MODE_EXPLICIT);
-                param.setCompressionType("ZLib");   // TIFF compression 8, "Adobe Deflate": what GDAL writes for DEFLATE
-                // ImageIO maps quality q to zlib level 1 + 8q; its default 1.0 (level 9) took 4x as long as
-                // level 5 for no smaller a file (3000 x 2000 x 3 test grid, docs/formats/geotiff.md).
-                param.setCompressionQuality(0.5f);
-                writer.write(null, new IIOImage(image, null, dir.getAsMetadata()), param);
-            } finally {
-                writer.dispose();
+            long[] offset = new long[strips], count = new long[strips];
+            try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.CREATE,
+                    StandardOpenOption.TRUNCATE_EXISTING)) {
+                long at = HEADER;
+                ch.position(at);
+                // strips compressed side by side, written in order: the same bytes for any number of threads
+                for (int s0 = 0; s0 < strips; s0 += BATCH_STRIPS) {
+                    int first = s0, last = Math.min(strips, s0 + BATCH_STRIPS);
+                    byte[][] packed = new byte[last - first][];
+                    IntStream.range(first, last).parallel().forEach(s ->
+                            packed[s - first] = strip(banks, nx, s * rowsPerStrip, Math.min(ny, (s + 1) * rowsPerStrip)));
+                    for (int s = first; s < last; s++) {
+                        byte[] z = packed[s - first];
+                        offset[s] = at;
+                        count[s] = z.length;
+                        writeFully(ch, ByteBuffer.wrap(z));
+                        at += z.length;
+                    }
+                }
+                long ifdAt = (at + 1) & ~1L;   // word boundary (TIFF 6.0, section 2)
+                if (ifdAt != at) writeFully(ch, ByteBuffer.allocate(1));
+                byte[] ifd = directory(grid, names, metadata, epsg, crsName, rowsPerStrip, offset, count, ifdAt);
+                if (ifdAt + ifd.length > 0xFFFF_FFFFL) {
+                    throw new IOException(out + ": the compressed GeoTIFF would exceed the 4 GiB of a classic TIFF; choose a larger cell");
+                }
+                writeFully(ch, ByteBuffer.wrap(ifd));
+                ByteBuffer head = ByteBuffer.allocate(HEADER).order(ByteOrder.BIG_ENDIAN);
+                head.put((byte) 'M').put((byte) 'M').putShort((short) 42).putInt((int) ifdAt).flip();
+                ch.position(0);
+                writeFully(ch, head);
             }
-            if (banks.length > 1) declareExtraSamples(tmp, banks.length - 1);
         });
     }
 
-    /**
-     * Adds the ExtraSamples field (TIFF 6.0 tag 338) that the ImageIO writer cannot emit except for
-     * alpha: with PhotometricInterpretation BlackIsZero only band 1 is the "colour" channel, and the
-     * others must be declared as extra samples of unspecified meaning (value 0), as GDAL does itself;
-     * without it libtiff warns on every open. The image file directory is copied, with the new field
-     * in tag order, to the end of the file and the header is pointed at the copy; every other offset
-     * is absolute and stays valid (TIFF 6.0, section 2: IFDs may be anywhere in the file).
-     */
-    static void declareExtraSamples(Path tiff, int extra) throws IOException {
-        try (FileChannel ch = FileChannel.open(tiff, StandardOpenOption.READ, StandardOpenOption.WRITE)) {
-            ByteBuffer head = readFully(ch, 0, 8);
-            head.order(head.get(0) == 'I' ? ByteOrder.LITTLE_ENDIAN : ByteOrder.BIG_ENDIAN);
-            if (head.getShort(2) != 42) throw new IOException(tiff + ": not a classic TIFF written by ImageIO");
-            long ifd = Integer.toUnsignedLong(head.getInt(4));
-            int count = Short.toUnsignedInt(readFully(ch, ifd, 2).order(head.order()).getShort(0));
-            ByteBuffer old = readFully(ch, ifd + 2, count * 12 + 4).order(head.order());
-            long at = (ch.size() + 3) & ~3L;                    // new IFD on a word boundary
-            long valuesAt = at + 2 + (count + 1) * 12L + 4;     // ExtraSamples values when they do not fit in 4 bytes
-            ByteBuffer out = ByteBuffer.allocate(2 + (count + 1) * 12 + 4 + (extra > 2 ? 2 * extra : 0)).order(head.order());
-            out.putShort((short) (count + 1));
-            boolean added = false;
-            for (int i = 0; i < count; i++) {
-                int tag = Short.toUnsignedInt(old.getShort(i * 12));
-                if (tag == BaselineTIFFTagSet.TAG_EXTRA_SAMPLES) throw new IOException(tiff + ": already has ExtraSamples");
-                if (!added && tag > BaselineTIFFTagSet.TAG_EXTRA_SAMPLES) { putExtraSamples(out, extra, valuesAt); added = true; }
-                out.put(old.array(), i * 12, 12);
+    /** Bytes before the first strip: the 8-byte TIFF header. */
+    private static final int HEADER = 8;
+
+    /** Rows [r0, r1) pixel-interleaved as big-endian float32, zlib-compressed (TIFF compression 8). */
+    private static byte[] strip(float[][] banks, int nx, int r0, int r1) {
+        int nb = banks.length;
+        ByteBuffer raw = ByteBuffer.allocate((r1 - r0) * nx * nb * Float.BYTES).order(ByteOrder.BIG_ENDIAN);
+        for (int r = r0; r < r1; r++) {
+            int base = r * nx;
+            for (int c = 0; c < nx; c++) {
+                for (float[] bank : banks) raw.putFloat(bank[base + c]);
             }
-            if (!added) putExtraSamples(out, extra, valuesAt);
-            out.putInt(old.getInt(count * 12));                  // next IFD offset, unchanged (0)
-            for (int i = 0; i < extra && extra > 2; i++) out.putShort((short) 0);
-            ch.write(out.flip(), at);
-            ch.write(head.putInt(4, (int) at).position(4).limit(8), 4);
+        }
+        Deflater d = new Deflater(DEFLATE_LEVEL);
+        try {
+            d.setInput(raw.array());
+            d.finish();
+            byte[] z = new byte[raw.capacity() / 2 + 64];
+            int n = 0;
+            while (!d.finished()) {
+                if (n == z.length) z = Arrays.copyOf(z, 2 * z.length);
+                n += d.deflate(z, n, z.length - n);
+            }
+            return Arrays.copyOf(z, n);
+        } finally {
+            d.end();
         }
     }
 
-    private static void putExtraSamples(ByteBuffer out, int extra, long valuesAt) {
-        out.putShort((short) BaselineTIFFTagSet.TAG_EXTRA_SAMPLES).putShort((short) TIFFTag.TIFF_SHORT).putInt(extra);
-        if (extra <= 2) out.putShort((short) 0).putShort((short) 0);   // 0 = unspecified data, stored in the entry
-        else out.putInt((int) valuesAt);
-    }
-
-    private static ByteBuffer readFully(FileChannel ch, long pos, int n) throws IOException {
-        ByteBuffer b = ByteBuffer.allocate(n);
-        while (b.hasRemaining()) {
-            if (ch.read(b, pos + b.position()) < 0) throw new IOException("TIFF ends early at byte " + (pos + b.position()));
-        }
-        return b.flip();
-    }
-
-    /** A colour space of n generic components: lets ImageIO carry n float bands that are not colours. */
-    private static final class Samples extends ColorSpace {
-        private static final long serialVersionUID = 1L;
-        Samples(int n) { super(n <= 15 ? ColorSpace.TYPE_2CLR + n - 2 : ColorSpace.TYPE_FCLR, n); }
-        @Override public float[] toRGB(float[] v) { return new float[] {v[0], v[0], v[0]}; }
-        @Override public float[] fromRGB(float[] rgb) { float[] v = new float[getNumComponents()]; v[0] = rgb[0]; return v; }
-        @Override public float[] toCIEXYZ(float[] v) { return toRGB(v); }
-        @Override public float[] fromCIEXYZ(float[] xyz) { return fromRGB(xyz); }
-        @Override public float getMinValue(int component) { return -Float.MAX_VALUE; }
-        @Override public float getMaxValue(int component) { return Float.MAX_VALUE; }
+    private static void writeFully(FileChannel ch, ByteBuffer b) throws IOException {
+        while (b.hasRemaining()) ch.write(b);
     }
 
     /** The EPSG code of a projected CRS, or IllegalArgumentException saying what is needed. */
@@ -210,42 +184,117 @@ public final class GeoTiffWriter {
         return code;
     }
 
-    private static TIFFDirectory directory(Grid grid, List<String> names, Map<String, String> metadata, int epsg, String crsName) {
-        BaselineTIFFTagSet base = BaselineTIFFTagSet.getInstance();
-        GeoTIFFTagSet geo = GeoTIFFTagSet.getInstance();
-        TIFFDirectory dir = new TIFFDirectory(new TIFFTagSet[] {base, geo}, null);
+    // TIFF 6.0 field types
+    private static final short ASCII = 2, SHORT = 3, LONG = 4, DOUBLE = 12;
+
+    /**
+     * The image file directory (TIFF 6.0 section 2, entries sorted by tag) with its out-of-line
+     * values, to be written at {@code at}.
+     */
+    private static byte[] directory(Grid grid, List<String> names, Map<String, String> metadata, int epsg,
+                                    String crsName, int rowsPerStrip, long[] offset, long[] count, long at) {
         int n = names.size();
-
-        // Not RGB even with three bands: each band is a measured quantity (ImageIO would say RGB for three).
-        dir.addTIFFField(new TIFFField(base.getTag(BaselineTIFFTagSet.TAG_PHOTOMETRIC_INTERPRETATION),
-                BaselineTIFFTagSet.PHOTOMETRIC_INTERPRETATION_BLACK_IS_ZERO));
-        char[] fmt = new char[n];
-        java.util.Arrays.fill(fmt, (char) BaselineTIFFTagSet.SAMPLE_FORMAT_FLOATING_POINT);
-        dir.addTIFFField(new TIFFField(base.getTag(BaselineTIFFTagSet.TAG_SAMPLE_FORMAT), TIFFTag.TIFF_SHORT, n, fmt));
-        dir.addTIFFField(ascii(base.getTag(BaselineTIFFTagSet.TAG_SOFTWARE), "Leadline"));
-
+        Ifd d = new Ifd();
+        d.longs(256, grid.nx);                                   // ImageWidth
+        d.longs(257, grid.ny);                                   // ImageLength
+        d.shorts(258, repeat(n, 32));                            // BitsPerSample
+        d.shorts(259, 8);                                        // Compression: Deflate ("Adobe Deflate", zlib)
+        // Not RGB even with three bands: each band is a measured quantity.
+        d.shorts(262, 1);                                        // PhotometricInterpretation: BlackIsZero
+        d.longs(273, offset);                                    // StripOffsets
+        d.shorts(277, n);                                        // SamplesPerPixel
+        d.longs(278, rowsPerStrip);                              // RowsPerStrip
+        d.longs(279, count);                                     // StripByteCounts
+        d.shorts(284, 1);                                        // PlanarConfiguration: chunky
+        d.ascii(305, "Leadline");                                // Software
+        // bands 2..n are extra samples of unspecified meaning (0), as GDAL writes them; without this
+        // field libtiff warns on every open
+        if (n > 1) d.shorts(338, repeat(n - 1, 0));              // ExtraSamples
+        d.shorts(339, repeat(n, 3));                             // SampleFormat: IEEE floating point
         // Georeferencing (GeoTIFF 1.1 sections 7.2-7.3): raster (0,0) = top-left corner of cell (0,0).
-        dir.addTIFFField(new TIFFField(geo.getTag(GeoTIFFTagSet.TAG_MODEL_PIXEL_SCALE), TIFFTag.TIFF_DOUBLE, 3,
-                new double[] {grid.cell, grid.cell, 0}));
-        dir.addTIFFField(new TIFFField(geo.getTag(GeoTIFFTagSet.TAG_MODEL_TIE_POINT), TIFFTag.TIFF_DOUBLE, 6,
-                new double[] {0, 0, 0, grid.xMin, grid.yMax, 0}));
+        d.doubles(33550, grid.cell, grid.cell, 0);               // ModelPixelScale
+        d.doubles(33922, 0, 0, 0, grid.xMin, grid.yMax, 0);      // ModelTiepoint
         String citation = crsName + "|";   // GeoAsciiParams strings end with '|'
-        char[] keys = {
-            1, 1, 0, 5,                                              // version 1, revision 1.0, 5 keys (sorted by id)
+        d.shorts(34735,                                          // GeoKeyDirectory
+            1, 1, 0, 5,                                          // version 1, revision 1.0, 5 keys (sorted by id)
             GT_MODEL_TYPE, 0, 1, MODEL_TYPE_PROJECTED,
             GT_RASTER_TYPE, 0, 1, RASTER_PIXEL_IS_AREA,
-            GT_CITATION, (char) GeoTIFFTagSet.TAG_GEO_ASCII_PARAMS, (char) citation.length(), 0,
-            PROJECTED_CS_TYPE, 0, 1, (char) epsg,
-            PROJ_LINEAR_UNITS, 0, 1, LINEAR_METER,
-        };
-        dir.addTIFFField(new TIFFField(geo.getTag(GeoTIFFTagSet.TAG_GEO_KEY_DIRECTORY), TIFFTag.TIFF_SHORT, keys.length, keys));
-        dir.addTIFFField(ascii(geo.getTag(GeoTIFFTagSet.TAG_GEO_ASCII_PARAMS), citation));
+            GT_CITATION, 34737, citation.length(), 0,
+            PROJECTED_CS_TYPE, 0, 1, epsg,
+            PROJ_LINEAR_UNITS, 0, 1, LINEAR_METER);
+        d.ascii(34737, citation);                                // GeoAsciiParams
+        // GDAL's private tags: band names and dataset items as XML, no-data as ASCII.
+        d.ascii(TAG_GDAL_METADATA, gdalMetadata(names, metadata));
+        d.ascii(TAG_GDAL_NODATA, "nan");
+        return d.bytes(at);
+    }
 
-        // GDAL's private tags: no-data as ASCII, band names and dataset items as XML.
-        dir.addTIFFField(ascii(new TIFFTag("GDAL_NODATA", TAG_GDAL_NODATA, 1 << TIFFTag.TIFF_ASCII), "nan"));
-        dir.addTIFFField(ascii(new TIFFTag("GDAL_METADATA", TAG_GDAL_METADATA, 1 << TIFFTag.TIFF_ASCII),
-                gdalMetadata(names, metadata)));
-        return dir;
+    private static int[] repeat(int n, int v) {
+        int[] a = new int[n];
+        Arrays.fill(a, v);
+        return a;
+    }
+
+    /** Entries of one classic big-endian IFD, in the order added (which must be tag order). */
+    private static final class Ifd {
+        private final List<Object[]> entries = new ArrayList<>();   // {tag, type, count, value bytes}
+
+        void shorts(int tag, int... v) {
+            ByteBuffer b = ByteBuffer.allocate(2 * v.length);
+            for (int x : v) b.putShort((short) x);
+            add(tag, SHORT, v.length, b.array());
+        }
+
+        void longs(int tag, long... v) {
+            ByteBuffer b = ByteBuffer.allocate(4 * v.length);
+            for (long x : v) b.putInt((int) x);
+            add(tag, LONG, v.length, b.array());
+        }
+
+        void doubles(int tag, double... v) {
+            ByteBuffer b = ByteBuffer.allocate(8 * v.length);
+            for (double x : v) b.putDouble(x);
+            add(tag, DOUBLE, v.length, b.array());
+        }
+
+        void ascii(int tag, String v) {
+            byte[] t = (v + "\0").getBytes(StandardCharsets.US_ASCII);
+            add(tag, ASCII, t.length, t);
+        }
+
+        private void add(int tag, short type, int count, byte[] value) {
+            if (!entries.isEmpty() && (int) entries.get(entries.size() - 1)[0] >= tag) {
+                throw new IllegalStateException("TIFF tags out of order at " + tag);
+            }
+            entries.add(new Object[] {tag, type, count, value});
+        }
+
+        /** The directory and, after it, the values longer than 4 bytes (each on a word boundary). */
+        byte[] bytes(long at) {
+            int head = 2 + 12 * entries.size() + 4;
+            int extra = 0;
+            for (Object[] e : entries) {
+                int len = ((byte[]) e[3]).length;
+                if (len > 4) extra += (len + 1) & ~1;
+            }
+            ByteBuffer b = ByteBuffer.allocate(head + extra).order(ByteOrder.BIG_ENDIAN);
+            b.putShort((short) entries.size());
+            int values = head;
+            for (Object[] e : entries) {
+                byte[] v = (byte[]) e[3];
+                b.putShort((short) (int) (Integer) e[0]).putShort((Short) e[1]).putInt((Integer) e[2]);
+                if (v.length <= 4) {
+                    b.put(v);
+                    for (int k = v.length; k < 4; k++) b.put((byte) 0);   // left-justified in the field
+                } else {
+                    b.putInt((int) (at + values));
+                    b.put(values, v);
+                    values += (v.length + 1) & ~1;
+                }
+            }
+            b.putInt(0);   // no next IFD
+            return b.array();
+        }
     }
 
     /** GDAL_METADATA XML: dataset items, then per band its description (and unit for lengths). */
@@ -269,10 +318,6 @@ public final class GeoTiffWriter {
 
     private static boolean isLength(String layer) {
         return layer.equals(Grid.DEPTH) || layer.equals(Grid.UNCERTAINTY) || layer.equals(Grid.STDDEV);
-    }
-
-    private static TIFFField ascii(TIFFTag tag, String value) {
-        return new TIFFField(tag, TIFFTag.TIFF_ASCII, 1, new String[] {value});
     }
 
     /**

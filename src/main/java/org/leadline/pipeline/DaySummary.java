@@ -99,12 +99,12 @@ public final class DaySummary {
         Sample(int cap) { this.cap = cap; }
 
         void add(double x) {
-            if (seen++ % stride != 0) return;
+            if ((seen++ & (stride - 1)) != 0) return;   // stride is a power of two
             if (n == cap) {
                 for (int k = 0; k < n / 2; k++) v[k] = v[2 * k];
                 n /= 2;
                 stride *= 2;
-                if ((seen - 1) % stride != 0) return;
+                if (((seen - 1) & (stride - 1)) != 0) return;
             }
             if (n == v.length) v = Arrays.copyOf(v, Math.min(cap, 2 * n));
             v[n++] = x;

@@ -98,14 +98,22 @@ public final class SurveyInputs {
         }
         PingTable pings = tables.size() == 1 ? tables.get(0) : PingTable.concat(tables);
         int n = pings.size;
-        double[][] cols = new double[7][n];
-        byte[] reason = new byte[n];
-        int at = 0;
-        for (MergedPings m : merged) {
-            double[][] src = {m.lat, m.lon, m.heading, m.heave, m.roll, m.pitch, m.speedOverGround};
-            for (int k = 0; k < 7; k++) System.arraycopy(src[k], 0, cols[k], at, m.size);
-            System.arraycopy(m.reason, 0, reason, at, m.size);
-            at += m.size;
+        double[][] cols;
+        byte[] reason;
+        if (merged.size() == 1) {   // one file (a swath day): its columns as they are, not copies
+            MergedPings m = merged.get(0);
+            cols = new double[][] {m.lat, m.lon, m.heading, m.heave, m.roll, m.pitch, m.speedOverGround};
+            reason = m.reason;
+        } else {
+            cols = new double[7][n];
+            reason = new byte[n];
+            int at = 0;
+            for (MergedPings m : merged) {
+                double[][] src = {m.lat, m.lon, m.heading, m.heave, m.roll, m.pitch, m.speedOverGround};
+                for (int k = 0; k < 7; k++) System.arraycopy(src[k], 0, cols[k], at, m.size);
+                System.arraycopy(m.reason, 0, reason, at, m.size);
+                at += m.size;
+            }
         }
 
         DaySummary day = new DaySummary();

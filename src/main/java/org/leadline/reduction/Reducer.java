@@ -121,6 +121,24 @@ public final class Reducer {
         double roll, pitch, heave, heading, sog, lat;
         double cf, sf, ct, st, zt, ch, sh, fwd0, stb0, meridian, primeVertical, cosLat;
 
+        /** sin and cos of recent beam angles (a swath repeats the same angles ping after ping), direct-mapped by bits. */
+        final long[] angleBits = new long[256];
+        final double[] angleSin = new double[256], angleCos = new double[256];
+
+        PingState() { java.util.Arrays.fill(angleBits, Double.doubleToRawLongBits(Double.NaN)); }
+
+        /** Math.sin(beam) into angleSin[slot], Math.cos(beam) into angleCos[slot]; returns slot. */
+        int sinCos(double beam) {
+            long bits = Double.doubleToRawLongBits(beam);
+            int slot = (int) (bits ^ (bits >>> 17) ^ (bits >>> 35)) & 255;
+            if (angleBits[slot] != bits) {
+                angleBits[slot] = bits;
+                angleSin[slot] = Math.sin(beam);
+                angleCos[slot] = Math.cos(beam);
+            }
+            return slot;
+        }
+
         boolean matches(double roll, double pitch, double heave, double heading, double sog, double lat) {
             return valid && same(roll, this.roll) && same(pitch, this.pitch) && same(heave, this.heave)
                     && same(heading, this.heading) && same(sog, this.sog) && same(lat, this.lat);
@@ -197,16 +215,20 @@ public final class Reducer {
             lf = 0; ls = 0; ld = 1;
         } else if (rollStabilised) {
             // angle already earth-referenced across track; pitch still tilts it fore-aft
-            double y = Math.sin(beam), z = Math.cos(beam);
+            int k = ps.sinCos(beam);
+            double y = ps.angleSin[k], z = ps.angleCos[k];
             lf = st * z; ls = y; ld = ct * z;
         } else {
-            double y = Math.sin(beam), z = Math.cos(beam);
+            int k = ps.sinCos(beam);
+            double y = ps.angleSin[k], z = ps.angleCos[k];
             double y1 = cf * y - sf * z, z1 = sf * y + cf * z; // Rx(roll)
             lf = st * z1; ls = y1; ld = ct * z1;               // Ry(pitch)
         }
         double horiz = Math.sqrt(lf * lf + ls * ls); // not Math.hypot: 5x slower, and no overflow is possible here
         double theta = Math.atan2(horiz, ld);
-        double azRel = horiz == 0 ? 0 : Math.atan2(ls, lf);
+        // direction of the launch vector's horizontal part relative to the bow, as its sine and
+        // cosine (ls/horiz, lf/horiz; the angle itself is never needed)
+        double sinAz = horiz == 0 ? 0 : ls / horiz, cosAz = horiz == 0 ? 1 : lf / horiz;
 
         int a = choice.castA()[i];
         tracers[a].trace(zt, theta, oneWay, out);
@@ -219,7 +241,6 @@ public final class Reducer {
         double surfaceDepth = zt + out[0];
         s.surfaceDepth[i] = surfaceDepth;
         s.launchAngle[i] = theta;
-        double sinAz = Math.sin(azRel), cosAz = Math.cos(azRel);
         s.acrossTrack[i] = out[1] * sinAz + ps.stb0;
 
         // Horizontal offset of the footprint from the position reference, level frame then north/east
