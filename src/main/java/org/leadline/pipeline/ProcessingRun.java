@@ -138,7 +138,7 @@ public final class ProcessingRun {
         double[] zoneSigma = new double[n];
         transducerTerms(s, in.heave, choice.castA(), profiles, in.vessel, in.waterLevel, cTransducer, zoneSigma);
         TpuModel tpu = new TpuModel(in.vessel);
-        tpu.compute(s, in.heave, cTransducer, zoneSigma);
+        TpuModel.Computed tpuDone = tpu.compute(s, in.heave, cTransducer, zoneSigma);
         checkCancel();
 
         progress.stage("Cleaning");
@@ -152,7 +152,7 @@ public final class ProcessingRun {
             EditJournal.apply(s, edits);
             journalEdits = edits.size();
         }
-        TpuSummary tpuSummary = tpu.summarize(s, in.heave, cTransducer, zoneSigma);
+        TpuSummary tpuSummary = tpu.summarize(tpuDone);   // sums again only what cleaning changed
         S44Order order = S44Order.parse(set.order());
         ComplianceSummary compliance = Compliance.evaluate(s, order).summary(s);
         checkCancel();

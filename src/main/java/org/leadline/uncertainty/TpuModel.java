@@ -4,6 +4,7 @@ import org.leadline.survey.SoundingTable;
 import org.leadline.survey.Vessel;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.stream.IntStream;
 
@@ -89,17 +90,21 @@ public final class TpuModel {
      * @param soundSpeedAtTransducer sound speed at the transducer, m/s; null or NaN: the sounder set speed
      * @param tideZoneSigma          one-sigma zoning uncertainty of each sounding's water level, m
      *                               (0 next to the gauge); null: the vessel's {@code tideZone} for all
+     * @return the sums {@link #summarize(Computed)} reuses once the table has been cleaned
      */
-    public void compute(SoundingTable soundings, double[] heave, double[] soundSpeedAtTransducer,
-                        double[] tideZoneSigma) {
+    public Computed compute(SoundingTable soundings, double[] heave, double[] soundSpeedAtTransducer,
+                            double[] tideZoneSigma) {
         checkLength(soundings, heave, "heave");
         checkLength(soundings, soundSpeedAtTransducer, "soundSpeedAtTransducer");
         checkLength(soundings, tideZoneSigma, "tideZoneSigma");
         int n = soundings.size;
+        Partial[] sub = new Partial[(n + SUB - 1) / SUB];
         // rows in fixed blocks on all cores: each row is written by one task, the same bits for any thread count
         IntStream.range(0, (n + BLOCK - 1) / BLOCK).parallel().forEach(b -> {
             double[] v = new double[N], a = new double[N], c = new double[N];
+            Partial p = null;
             for (int i = b * BLOCK, end = Math.min(n, (b + 1) * BLOCK); i < end; i++) {
+                if (i % SUB == 0) sub[i / SUB] = p = new Partial();
                 double z = rayDepth(soundings, i, heave);
                 if (Double.isNaN(z)) {
                     soundings.tvu[i] = Double.NaN;
@@ -108,10 +113,35 @@ public final class TpuModel {
                 }
                 terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
                         soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
-                soundings.tvu[i] = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
-                soundings.thu[i] = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
+                double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
+                double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
+                soundings.tvu[i] = tvu;
+                soundings.thu[i] = thu;
+                if (soundings.accepted(i)) p.add(v, a, c, tvu, thu);
             }
         });
+        return new Computed(soundings, soundings.status.clone(), sub, heave, soundSpeedAtTransducer, tideZoneSigma);
+    }
+
+    /**
+     * What {@link #compute} leaves for {@link #summarize(Computed)}: the sums of each sub-block of
+     * {@link #SUB} rows over the soundings accepted at that time, and their status then.
+     */
+    public final class Computed {
+        private final SoundingTable soundings;
+        private final byte[] status;
+        private final Partial[] sub;
+        private final double[] heave, soundSpeedAtTransducer, tideZoneSigma;
+
+        private Computed(SoundingTable soundings, byte[] status, Partial[] sub, double[] heave,
+                         double[] soundSpeedAtTransducer, double[] tideZoneSigma) {
+            this.soundings = soundings;
+            this.status = status;
+            this.sub = sub;
+            this.heave = heave;
+            this.soundSpeedAtTransducer = soundSpeedAtTransducer;
+            this.tideZoneSigma = tideZoneSigma;
+        }
     }
 
     /** The breakdown of sounding i of a reduced table (same inputs as {@link #compute}); null arrays allowed. */
@@ -157,18 +187,75 @@ public final class TpuModel {
         return tally().add(soundings, heave, soundSpeedAtTransducer, tideZoneSigma).summary();
     }
 
+    /**
+     * {@link #summarize} of the table given to {@link #compute} as it is now (after cleaning and
+     * edits), with the same bits: a sub-block whose statuses have not changed since reuses the sums
+     * compute made; only the others (a few, next to rejected soundings) are summed again.
+     */
+    public TpuSummary summarize(Computed done) {
+        SoundingTable t = done.soundings;
+        int n = t.size;
+        Partial[] blocks = new Partial[(n + BLOCK - 1) / BLOCK];
+        IntStream.range(0, blocks.length).parallel().forEach(b -> {
+            Partial block = new Partial();
+            double[] v = new double[N], a = new double[N], c = new double[N];
+            for (int s0 = b * BLOCK, end = Math.min(n, (b + 1) * BLOCK); s0 < end; s0 += SUB) {
+                int s1 = Math.min(end, s0 + SUB);
+                Partial p = done.sub[s0 / SUB];
+                if (Arrays.mismatch(t.status, s0, s1, done.status, s0, s1) >= 0) {
+                    p = new Partial();
+                    sumRows(t, s0, s1, done.heave, done.soundSpeedAtTransducer, done.tideZoneSigma, p, v, a, c);
+                }
+                block.fold(p);
+            }
+            blocks[b] = block;
+        });
+        Partial total = new Partial();
+        for (Partial b : blocks) total.fold(b);
+        return summaryOf(total);
+    }
+
+    /** Adds the accepted rows [from, to) with a finite ray depth to p (one sub-block or part of one). */
+    private void sumRows(SoundingTable t, int from, int to, double[] heave, double[] soundSpeedAtTransducer,
+                         double[] tideZoneSigma, Partial p, double[] v, double[] a, double[] c) {
+        for (int i = from; i < to; i++) {
+            if (!t.accepted(i)) continue;
+            double z = rayDepth(t, i, heave);
+            if (Double.isNaN(z)) continue;
+            terms(z, t.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
+                    t.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
+            p.add(v, a, c, HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v)),
+                    HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c))));
+        }
+    }
+
+    private static TpuSummary summaryOf(Partial t) {
+        long count = t.count;
+        List<TpuSummary.Entry> entries = new ArrayList<>();
+        for (TpuComponent comp : TpuComponent.values()) {
+            int k = comp.ordinal();
+            entries.add(new TpuSummary.Entry(comp, count == 0 ? Double.NaN : Math.sqrt(t.sv[k] / count),
+                    count == 0 ? Double.NaN : Math.sqrt(t.sh[k] / count)));
+        }
+        return new TpuSummary((int) Math.min(Integer.MAX_VALUE, count), entries,
+                count == 0 ? Double.NaN : t.sumTvu / count, count == 0 ? Double.NaN : t.maxTvu,
+                count == 0 ? Double.NaN : t.sumThu / count, count == 0 ? Double.NaN : t.maxThu);
+    }
+
     /** An empty running {@link #summarize}: add consecutive chunks of a day in row order, then ask for the summary. */
     public Tally tally() { return new Tally(); }
 
     /**
-     * Running sums of {@link #summarize}. Sums are kept by fixed blocks of {@link #BLOCK} rows of the
-     * whole day (each block summed in row order, on any core), folded in block order; a block cut by
-     * a chunk boundary is carried on into the next chunk. So adding the chunks of a table gives
-     * exactly the bits of the whole table's summary, for any thread count and any chunking.
+     * Running sums of {@link #summarize}. Sums are kept by fixed sub-blocks of {@link #SUB} rows of
+     * the whole day (each summed in row order), folded in order into blocks of {@link #BLOCK} rows (on
+     * any core), folded in block order; a block or sub-block cut by a chunk boundary is carried on
+     * into the next chunk. So adding the chunks of a table gives exactly the bits of the whole
+     * table's summary, for any thread count and any chunking.
      */
     public final class Tally {
         private final Partial total = new Partial();
-        private Partial open;
+        /** The day's block and sub-block under way at the end of the last chunk (null: none). */
+        private Partial openBlock, openSub;
         private long rows;
 
         private Tally() {}
@@ -182,35 +269,35 @@ public final class TpuModel {
             if (n == 0) return this;
             long first = rows;
             List<int[]> seg = Compliance.blockSegments(first, n, BLOCK);
-            Partial[] parts = new Partial[seg.size()];
-            Partial carried = open;
+            Partial[][] parts = new Partial[seg.size()][];
+            Partial carriedBlock = openBlock, carriedSub = openSub;
             IntStream.range(0, parts.length).parallel().forEach(k -> {
-                Partial p = k == 0 && carried != null ? carried : new Partial();
+                boolean carry = k == 0 && carriedBlock != null;
+                Partial block = carry ? carriedBlock : new Partial();
+                Partial sub = carry ? carriedSub : new Partial();
                 double[] v = new double[N], a = new double[N], c = new double[N];
-                for (int i = seg.get(k)[0], end = seg.get(k)[1]; i < end; i++) {
-                    if (!soundings.accepted(i)) continue;
-                    double z = rayDepth(soundings, i, heave);
-                    if (Double.isNaN(z)) continue;
-                    terms(z, soundings.acrossTrack[i], value(heave, i, 0), value(soundSpeedAtTransducer, i, Double.NaN),
-                            soundings.speedOverGround[i], value(tideZoneSigma, i, Double.NaN), v, a, c);
-                    for (int q = 0; q < N; q++) {
-                        p.sv[q] += v[q] * v[q];
-                        p.sh[q] += a[q] * a[q] + c[q] * c[q];
+                int i = seg.get(k)[0], end = seg.get(k)[1];
+                while (i < end) {
+                    // rows up to the next sub-block boundary of the day, then that sub-block is folded in
+                    long g = first + i;
+                    int stop = (int) Math.min(end, i + (SUB - g % SUB));
+                    sumRows(soundings, i, stop, heave, soundSpeedAtTransducer, tideZoneSigma, sub, v, a, c);
+                    if ((first + stop) % SUB == 0) {
+                        block.fold(sub);
+                        sub = new Partial();
                     }
-                    double tvu = HorizontalConfidence.LINEAR_95 * Math.sqrt(sumSquares(v));
-                    double thu = HorizontalConfidence.radius95(Math.sqrt(sumSquares(a)), Math.sqrt(sumSquares(c)));
-                    p.sumTvu += tvu;
-                    p.sumThu += thu;
-                    p.maxTvu = Math.max(p.maxTvu, tvu);
-                    p.maxThu = Math.max(p.maxThu, thu);
-                    p.count++;
+                    i = stop;
                 }
-                parts[k] = p;
+                parts[k] = new Partial[] {block, sub};
             });
-            open = null;
+            openBlock = openSub = null;
             for (int k = 0; k < parts.length; k++) {
-                if ((first + seg.get(k)[1]) % BLOCK == 0) total.fold(parts[k]);
-                else open = parts[k]; // the day's block goes on in the next chunk (only the last segment)
+                if ((first + seg.get(k)[1]) % BLOCK == 0) {
+                    total.fold(parts[k][0]);   // a whole block: its last sub-block is already folded in
+                } else {                       // the day's block goes on in the next chunk (only the last segment)
+                    openBlock = parts[k][0];
+                    openSub = parts[k][1];
+                }
             }
             rows += n;
             return this;
@@ -220,28 +307,43 @@ public final class TpuModel {
         public TpuSummary summary() {
             Partial t = new Partial();
             t.fold(total);
-            if (open != null) t.fold(open);
-            long count = t.count;
-            List<TpuSummary.Entry> entries = new ArrayList<>();
-            for (TpuComponent comp : TpuComponent.values()) {
-                int k = comp.ordinal();
-                entries.add(new TpuSummary.Entry(comp, count == 0 ? Double.NaN : Math.sqrt(t.sv[k] / count),
-                        count == 0 ? Double.NaN : Math.sqrt(t.sh[k] / count)));
+            if (openBlock != null) {
+                Partial b = new Partial();
+                b.fold(openBlock);
+                b.fold(openSub);
+                t.fold(b);
             }
-            return new TpuSummary((int) Math.min(Integer.MAX_VALUE, count), entries,
-                    count == 0 ? Double.NaN : t.sumTvu / count, count == 0 ? Double.NaN : t.maxTvu,
-                    count == 0 ? Double.NaN : t.sumThu / count, count == 0 ? Double.NaN : t.maxThu);
+            return summaryOf(t);
         }
     }
 
     /** Rows per parallel block of {@link #compute} and {@link #summarize} (fixed: results do not depend on the cores). */
     private static final int BLOCK = 65_536;
 
-    /** Sums of one block of rows in {@link #summarize}. */
+    /**
+     * Rows per sub-block: each is summed row by row, sub-blocks are folded into their block in order.
+     * Small, so that the few sub-blocks that cleaning touches are all {@link #summarize(Computed)}
+     * has to sum again.
+     */
+    private static final int SUB = 1024;
+
+    /** Sums of one block or sub-block of rows in {@link #summarize}. */
     private static final class Partial {
         final double[] sv = new double[N], sh = new double[N];
         long count;
         double sumTvu, maxTvu, sumThu, maxThu;
+
+        void add(double[] v, double[] a, double[] c, double tvu, double thu) {
+            for (int q = 0; q < N; q++) {
+                sv[q] += v[q] * v[q];
+                sh[q] += a[q] * a[q] + c[q] * c[q];
+            }
+            sumTvu += tvu;
+            sumThu += thu;
+            maxTvu = Math.max(maxTvu, tvu);
+            maxThu = Math.max(maxThu, thu);
+            count++;
+        }
 
         void fold(Partial p) {
             for (int k = 0; k < N; k++) {

@@ -61,4 +61,51 @@ class RunningTallyTest {
         assertThat(chunked.entries()).isEqualTo(whole.entries());
         assertThat(cTally.summary()).isEqualTo(wholeC);
     }
+
+    @Test
+    void summaryFromComputeEqualsSummingAgainAfterCleaningChangedStatuses() {
+        int n = 150_000;
+        SplittableRandom rnd = new SplittableRandom(5);
+        SoundingTable t = new SoundingTable(n, List.of("L1"));
+        double[] heave = new double[n], cs = new double[n];
+        for (int i = 0; i < n; i++) {
+            t.depth[i] = 2 + 60 * rnd.nextDouble();
+            t.surfaceDepth[i] = rnd.nextInt(1000) == 0 ? Double.NaN : t.depth[i] + 1.5;
+            t.acrossTrack[i] = -80 + 160 * rnd.nextDouble();
+            t.speedOverGround[i] = 4 * rnd.nextDouble();
+            t.status[i] = rnd.nextInt(100) == 0 ? SoundingTable.Status.REJECTED.code : SoundingTable.Status.ACCEPTED.code;
+            heave[i] = 0.3 * rnd.nextGaussian();
+            cs[i] = 1480 + 20 * rnd.nextDouble();
+        }
+        TpuModel model = new TpuModel(TpuModelTest.VESSEL);
+        TpuModel.Computed done = model.compute(t, heave, cs, null);
+        // cleaning: spikes rejected here and there (the deepest soundings, which carry the largest
+        // TVU, so a stale sum would show in the maximum too), and one rejected sounding accepted again
+        int changed = 0;
+        for (int i = 0; i < n; i += 1 + rnd.nextInt(3000)) {
+            if (t.accepted(i)) {
+                t.reject(i, SoundingTable.Reason.SPIKE);
+                changed++;
+            }
+        }
+        int deepest = 0;
+        for (int i = 0; i < n; i++) if (t.accepted(i) && t.surfaceDepth[i] > t.surfaceDepth[deepest]) deepest = i;
+        t.reject(deepest, SoundingTable.Reason.SPIKE);
+        for (int i = 0; i < n; i++) {
+            if (!t.accepted(i)) {
+                t.status[i] = SoundingTable.Status.ACCEPTED.code;
+                t.reason[i] = 0;
+                break;
+            }
+        }
+        assertThat(changed).isGreaterThan(30);
+
+        TpuSummary reused = model.summarize(done);
+        TpuSummary again = model.summarize(t, heave, cs, null);
+        assertThat(reused.count()).isEqualTo(again.count());
+        assertThat(Double.doubleToLongBits(reused.meanTvu())).isEqualTo(Double.doubleToLongBits(again.meanTvu()));
+        assertThat(Double.doubleToLongBits(reused.maxTvu())).isEqualTo(Double.doubleToLongBits(again.maxTvu()));
+        assertThat(Double.doubleToLongBits(reused.meanThu())).isEqualTo(Double.doubleToLongBits(again.meanThu()));
+        assertThat(reused.entries()).isEqualTo(again.entries());
+    }
 }
