@@ -160,8 +160,13 @@ public final class ProcessingRun {
         progress.stage("Building surface");
         Gridder.Method method = Gridder.Method.parse(set.surface());
         boolean[] acc = new boolean[n];
-        int nAcc = 0;
-        for (int i = 0; i < n; i++) if (acc[i] = s.accepted(i) && Double.isFinite(s.easting[i])) nAcc++;
+        int nAcc = java.util.stream.IntStream.range(0, (n + 65_535) / 65_536).parallel().map(b -> {
+            int c = 0;
+            for (int i = b * 65_536, end = Math.min(n, (b + 1) * 65_536); i < end; i++) {
+                if (acc[i] = s.accepted(i) && Double.isFinite(s.easting[i])) c++;
+            }
+            return c;
+        }).sum();
         if (nAcc == 0) {
             Map<String, Integer> why = new java.util.TreeMap<>();
             for (int i = 0; i < n; i++) why.merge(SoundingTable.Reason.of(s.reason[i]).label, 1, Integer::sum);
@@ -172,7 +177,7 @@ public final class ProcessingRun {
         double cell = Double.isFinite(set.cell()) ? set.cell()
                 : GridSpec.suggestCell(select(s.depth, acc), in.vessel.beamWidth());
         if (!Double.isFinite(set.cell())) warnings.add("cell size not set: using the suggested " + cell + " m (from depth and beam footprint)");
-        GridSpec spec = GridSpec.covering(select(s.easting, acc), select(s.northing, acc), cell);
+        GridSpec spec = coveringAccepted(s, acc, cell);
         Grid grid = Gridder.build(spec, projection.crs(), s.easting, s.northing, s.depth, s.tvu, s.thu, acc, method,
                 org.leadline.surface.Cube.Parameters.defaults());
         Coverage coverage = Coverage.of(grid);
@@ -492,6 +497,25 @@ public final class ProcessingRun {
     public static String version() {
         String v = ProcessingRun.class.getPackage().getImplementationVersion();
         return v == null ? "development" : v;
+    }
+
+    /** {@link GridSpec#covering} of the accepted soundings, from their extent found in parallel blocks (no copies). */
+    private static GridSpec coveringAccepted(SoundingTable s, boolean[] acc, double cell) {
+        int n = s.size;
+        double[] box = java.util.stream.IntStream.range(0, (n + 65_535) / 65_536).parallel().mapToObj(b -> {
+            double[] r = {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+            for (int i = b * 65_536, end = Math.min(n, (b + 1) * 65_536); i < end; i++) {
+                double x = s.easting[i], y = s.northing[i];
+                if (!acc[i] || !Double.isFinite(x) || !Double.isFinite(y)) continue;
+                if (x < r[0]) r[0] = x;
+                if (x > r[1]) r[1] = x;
+                if (y < r[2]) r[2] = y;
+                if (y > r[3]) r[3] = y;
+            }
+            return r;
+        }).reduce((a, b) -> new double[] {b[0] < a[0] ? b[0] : a[0], b[1] > a[1] ? b[1] : a[1],
+                b[2] < a[2] ? b[2] : a[2], b[3] > a[3] ? b[3] : a[3]}).orElseThrow();   // as the loop in row order
+        return GridSpec.covering(box[0], box[1], box[2], box[3], cell);
     }
 
     private static double[] select(double[] a, boolean[] keep) {

@@ -18,9 +18,22 @@ public final class MergedPings {
     public final byte[] reason;
 
     MergedPings(int n) {
+        this(n, null, null, null, null, null);
+    }
+
+    /**
+     * Columns given (not null) are the ping table's own, shared rather than copied: on a swath day
+     * each is tens of megabytes. The merge never writes into a shared column.
+     */
+    MergedPings(int n, double[] lat, double[] lon, double[] heave, double[] roll, double[] pitch) {
         size = n;
-        lat = new double[n]; lon = new double[n]; heading = new double[n]; heave = new double[n];
-        roll = new double[n]; pitch = new double[n]; speedOverGround = new double[n];
+        this.lat = lat != null ? lat : new double[n];
+        this.lon = lon != null ? lon : new double[n];
+        this.heave = heave != null ? heave : new double[n];
+        this.roll = roll != null ? roll : new double[n];
+        this.pitch = pitch != null ? pitch : new double[n];
+        heading = new double[n];
+        speedOverGround = new double[n];
         courseOverGround = new double[n];
         reason = new byte[n];
     }

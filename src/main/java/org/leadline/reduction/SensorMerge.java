@@ -86,11 +86,17 @@ public final class SensorMerge {
         if (!Double.isFinite(latency)) throw new IllegalArgumentException("latency must be finite, found " + latency);
         if (!(speedWindow > 0)) throw new IllegalArgumentException("speed window must be > 0 s, found " + speedWindow);
         int n = pings.size;
-        MergedPings m = new MergedPings(n);
-        NavigationSeries track = navigation != null ? navigation : ownTrack != null ? ownTrack : trackOf(pings);
-        double navShift = navigation != null ? latency : 0;
         boolean[] fromSeries = new boolean[4];
         if (attitude != null) for (int q = 0; q < 4; q++) fromSeries[q] = attitude.has(q);
+        // columns taken as they are from the ping file are shared, not copied (their values are the
+        // same: within a ping a row is copied from the row before only when they are equal)
+        MergedPings m = new MergedPings(n,
+                navigation == null ? pings.lat : null, navigation == null ? pings.lon : null,
+                fromSeries[AttitudeSeries.HEAVE] ? null : pings.heave,
+                fromSeries[AttitudeSeries.ROLL] ? null : pings.roll,
+                fromSeries[AttitudeSeries.PITCH] ? null : pings.pitch);
+        NavigationSeries track = navigation != null ? navigation : ownTrack != null ? ownTrack : trackOf(pings);
+        double navShift = navigation != null ? latency : 0;
         // rows in blocks that each start at a new ping time, on all cores: a row copies only the row
         // before it within its own ping, so every row gets the same values for any thread count
         int[] starts = pingBlocks(pings, 1 << 16);
@@ -108,10 +114,21 @@ public final class SensorMerge {
                                   MergedPings m, int from, int to) {
         double[] p = new double[2];
         double[] sc = new double[2];
+        boolean ownPos = m.lat != pings.lat, ownHeave = m.heave != pings.heave, ownRoll = m.roll != pings.roll,
+                ownPitch = m.pitch != pings.pitch;
         for (int i = from; i < to; i++) {
             double t = pings.time[i];
             if (i > 0 && t == pings.time[i - 1] && sameOwnValues(pings, i, navigation == null, attitude)) {
-                copyRow(m, i - 1, i); // beams of one ping: same sensor state
+                // beams of one ping: same sensor state
+                int j = i - 1;
+                if (ownPos) { m.lat[i] = m.lat[j]; m.lon[i] = m.lon[j]; }
+                if (ownHeave) m.heave[i] = m.heave[j];
+                if (ownRoll) m.roll[i] = m.roll[j];
+                if (ownPitch) m.pitch[i] = m.pitch[j];
+                m.heading[i] = m.heading[j];
+                m.speedOverGround[i] = m.speedOverGround[j];
+                m.courseOverGround[i] = m.courseOverGround[j];
+                m.reason[i] = m.reason[j];
                 continue;
             }
             byte reason = Reason.NONE.code;
@@ -119,7 +136,7 @@ public final class SensorMerge {
                 navigation.position(t + latency, p);
                 m.lat[i] = p[0];
                 m.lon[i] = p[1];
-            } else {
+            } else if (ownPos) {
                 m.lat[i] = pings.lat[i];
                 m.lon[i] = pings.lon[i];
             }
@@ -134,9 +151,9 @@ public final class SensorMerge {
             double ta = t + latency;
             boolean attOk = attitude == null || attitude.covers(ta);
             m.heading[i] = fromSeries[AttitudeSeries.HEADING] ? attitude.heading(ta) : TimeSeries.wrap360(pings.heading[i]);
-            m.heave[i] = fromSeries[AttitudeSeries.HEAVE] ? attitude.heave(ta) : pings.heave[i];
-            m.roll[i] = fromSeries[AttitudeSeries.ROLL] ? attitude.roll(ta) : pings.roll[i];
-            m.pitch[i] = fromSeries[AttitudeSeries.PITCH] ? attitude.pitch(ta) : pings.pitch[i];
+            if (ownHeave) m.heave[i] = fromSeries[AttitudeSeries.HEAVE] ? attitude.heave(ta) : pings.heave[i];
+            if (ownRoll) m.roll[i] = fromSeries[AttitudeSeries.ROLL] ? attitude.roll(ta) : pings.roll[i];
+            if (ownPitch) m.pitch[i] = fromSeries[AttitudeSeries.PITCH] ? attitude.pitch(ta) : pings.pitch[i];
             if (!attOk && reason == Reason.NONE.code) reason = Reason.NO_ATTITUDE.code;
             m.reason[i] = reason;
         }
@@ -165,13 +182,6 @@ public final class SensorMerge {
     }
 
     private static boolean same(double a, double b) { return a == b || (Double.isNaN(a) && Double.isNaN(b)); }
-
-    private static void copyRow(MergedPings m, int from, int to) {
-        m.lat[to] = m.lat[from]; m.lon[to] = m.lon[from]; m.heading[to] = m.heading[from];
-        m.heave[to] = m.heave[from]; m.roll[to] = m.roll[from]; m.pitch[to] = m.pitch[from];
-        m.speedOverGround[to] = m.speedOverGround[from]; m.courseOverGround[to] = m.courseOverGround[from];
-        m.reason[to] = m.reason[from];
-    }
 
     /** The ping file's own positions as a track: first position of each distinct time; null if none. */
     static NavigationSeries trackOf(PingTable p) {
