@@ -204,21 +204,10 @@ public final class Cleaner {
                 lt = new double[Math.max(len, 2 * lt.length)];
                 ld = new double[lt.length];
             }
-            boolean sorted = true;
-            for (int p = 0; p < len; p++) {
-                int i = order[from + p];
-                lt[p] = time[i];
-                ld[p] = depth[i];
-                if (p > 0 && lt[p] < lt[p - 1]) sorted = false;
-            }
-            if (!sorted) {
+            if (!gather(order, from, len, time, depth, lt, ld)) {
                 if (tmp.length < len) tmp = new int[len];
                 mergeSortByKey(order, from, to, time, tmp);
-                for (int p = 0; p < len; p++) {
-                    int i = order[from + p];
-                    lt[p] = time[i];
-                    ld[p] = depth[i];
-                }
+                gather(order, from, len, time, depth, lt, ld);
             }
             for (int p = 0; p < len; p++) {
                 int lo = p - half;
@@ -270,6 +259,22 @@ public final class Cleaner {
             }
         }
         return untested;
+    }
+
+    /**
+     * Copies the times and depths of series rows order[from, from + len) into lt and ld; returns
+     * whether the times are in order. A method of its own: when the JIT's guesses about this loop
+     * fail, only this small method is compiled again, not the spike test around it.
+     */
+    private static boolean gather(int[] order, int from, int len, double[] time, double[] depth, double[] lt, double[] ld) {
+        boolean sorted = true;
+        for (int p = 0; p < len; p++) {
+            int i = order[from + p];
+            lt[p] = time[i];
+            ld[p] = depth[i];
+            if (p > 0 && lt[p] < lt[p - 1]) sorted = false;
+        }
+        return sorted;
     }
 
     /**
@@ -564,31 +569,32 @@ public final class Cleaner {
      */
     static void restoreSupported(SoundingTable s, boolean[] flagged, double floor, double kTvu) {
         int n = s.size;
-        int nf = 0;
-        for (int i = 0; i < n; i++) if (flagged[i]) nf++;
+        int[] flags = indicesOf(flagged);
+        int nf = flags.length;
         if (nf == 0) return;
         double r = SUPPORT_RADIUS;
         // only cells next to a flagged sounding can hold its witnesses: index just those (flags are
         // few, so this is a small set instead of a map over every sounding of the day)
         LongIntMap near = new LongIntMap(Math.max(16, nf * 4));
-        for (int i = 0; i < n; i++) {
-            if (!flagged[i] || !Double.isFinite(s.easting[i]) || !Double.isFinite(s.northing[i])) continue;
+        for (int i : flags) {
+            if (!Double.isFinite(s.easting[i]) || !Double.isFinite(s.northing[i])) continue;
             int cx = cellIndex(s.easting[i], r), cy = cellIndex(s.northing[i], r);
             for (int dx = -1; dx <= 1; dx++) for (int dy = -1; dy <= 1; dy++) near.putIfAbsent(cellKey(cx + dx, cy + dy), 0);
         }
+        // the accepted soundings in those cells, in row order, block by block (small methods that the
+        // JIT compiles once, rather than day-long loops compiled again whenever a rare branch is taken)
+        int blocks = (n + 65_535) / 65_536;
+        int[][] parts = new int[blocks][];
+        java.util.stream.IntStream.range(0, blocks).parallel()   // the map is only read here
+                .forEach(b -> parts[b] = witnessesIn(s, near, r, b * 65_536, Math.min(n, (b + 1) * 65_536)));
         int m = 0;
-        int[] pool = new int[Math.min(n, 1024)];
-        long[] poolKey = new long[pool.length];
-        for (int i = 0; i < n; i++) {
-            if (s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i])
-                    && Double.isFinite(s.northing[i])) {
-                long key = cellKey(cellIndex(s.easting[i], r), cellIndex(s.northing[i], r));
-                if (near.get(key) < 0) continue;
-                if (m == pool.length) {
-                    pool = Arrays.copyOf(pool, 2 * m);
-                    poolKey = Arrays.copyOf(poolKey, 2 * m);
-                }
-                poolKey[m] = key;
+        for (int[] q : parts) m += q.length;
+        int[] pool = new int[m];
+        long[] poolKey = new long[m];
+        m = 0;
+        for (int[] q : parts) {
+            for (int i : q) {
+                poolKey[m] = cellKey(cellIndex(s.easting[i], r), cellIndex(s.northing[i], r));
                 pool[m++] = i;
             }
         }
@@ -599,8 +605,8 @@ public final class Cleaner {
         int[] start = new int[cells + 1];
         int[] order = countingSort(pool, cid, m, cells, start);
         boolean[] keep = new boolean[n];
-        for (int i = 0; i < n; i++) {
-            if (!flagged[i] || !Double.isFinite(s.easting[i]) || !Double.isFinite(s.northing[i])) continue;
+        for (int i : flags) {
+            if (!Double.isFinite(s.easting[i]) || !Double.isFinite(s.northing[i])) continue;
             double tol = Double.isFinite(s.tvu[i]) ? Math.max(floor, kTvu * s.tvu[i]) : floor;
             int cx = cellIndex(s.easting[i], r), cy = cellIndex(s.northing[i], r);
             int support = 0;
@@ -620,7 +626,31 @@ public final class Cleaner {
             }
             keep[i] = support >= SUPPORT_MIN;
         }
-        for (int i = 0; i < n; i++) if (keep[i]) flagged[i] = false;
+        for (int i : flags) if (keep[i]) flagged[i] = false;
+    }
+
+    /** Rows i with flags[i] set, in order. */
+    static int[] indicesOf(boolean[] flags) {
+        int k = 0;
+        for (boolean f : flags) if (f) k++;
+        int[] out = new int[k];
+        k = 0;
+        for (int i = 0; i < flags.length; i++) if (flags[i]) out[k++] = i;
+        return out;
+    }
+
+    /** Accepted rows in [from, to) with a finite depth and position whose cell is in {@code near}, in order. */
+    private static int[] witnessesIn(SoundingTable s, LongIntMap near, double r, int from, int to) {
+        int[] out = new int[16];
+        int k = 0;
+        for (int i = from; i < to; i++) {
+            if (s.status[i] != Status.ACCEPTED.code || !Double.isFinite(s.depth[i]) || !Double.isFinite(s.easting[i])
+                    || !Double.isFinite(s.northing[i])) continue;
+            if (near.get(cellKey(cellIndex(s.easting[i], r), cellIndex(s.northing[i], r))) < 0) continue;
+            if (k == out.length) out = Arrays.copyOf(out, 2 * k);
+            out[k++] = i;
+        }
+        return Arrays.copyOf(out, k);
     }
 
     static int cellIndex(double v, double cell) { return (int) Math.floor(v / cell); }

@@ -99,20 +99,30 @@ public final class Contours {
             seen = new byte[sx * sy];
         }
 
+        // Row by row in methods of their own: run() is called once per level, so a loop over the
+        // whole grid in it would run interpreted until the JIT compiled it on the stack; a row
+        // method is called thousands of times and is compiled early (same squares, same order).
         List<Polyline> run() {
-            for (int r = 0; r < sy; r++) {
-                for (int c = 0; c < sx; c++) {
-                    int k = r * nx + c;
-                    double tl = v[k], tr = v[k + 1], bl = v[k + nx], br = v[k + nx + 1];
-                    if (Double.isNaN(tl) || Double.isNaN(tr) || Double.isNaN(bl) || Double.isNaN(br)) {
-                        cases[r * sx + c] = -1;
-                        continue;
-                    }
-                    cases[r * sx + c] = (byte) ((tl > level ? 8 : 0) | (tr > level ? 4 : 0)
-                            | (br > level ? 2 : 0) | (bl > level ? 1 : 0));
+            for (int r = 0; r < sy; r++) caseRow(r);
+            for (int r = 0; r < sy; r++) traceRow(r);
+            return lines;
+        }
+
+        private void caseRow(int r) {
+            for (int c = 0; c < sx; c++) {
+                int k = r * nx + c;
+                double tl = v[k], tr = v[k + 1], bl = v[k + nx], br = v[k + nx + 1];
+                if (Double.isNaN(tl) || Double.isNaN(tr) || Double.isNaN(bl) || Double.isNaN(br)) {
+                    cases[r * sx + c] = -1;
+                    continue;
                 }
+                cases[r * sx + c] = (byte) ((tl > level ? 8 : 0) | (tr > level ? 4 : 0)
+                        | (br > level ? 2 : 0) | (bl > level ? 1 : 0));
             }
-            for (int s = 0; s < sx * sy; s++) {
+        }
+
+        private void traceRow(int r) {
+            for (int s = r * sx, end = s + sx; s < end; s++) {
                 int cs = cases[s];
                 if (cs <= 0 || cs == 15) continue;
                 for (int slot = 0; slot < 2; slot++) {
@@ -121,7 +131,6 @@ public final class Contours {
                     chain(s, slot, seg);
                 }
             }
-            return lines;
         }
 
         /** The edge pair of segment slot (0 or 1) of square s with case cs, or null. */
