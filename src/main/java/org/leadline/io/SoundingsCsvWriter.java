@@ -53,7 +53,8 @@ public final class SoundingsCsvWriter {
 
     /** Opens {@code out} for a table written chunk by chunk (a day processed in tiles). */
     public static Appender open(Path out) throws IOException {
-        return new Appender(Files.newOutputStream(out));
+        // a gigabyte or more on a swath day: written around the page cache where the file system allows
+        return new Appender(DirectFileOutput.open(out));
     }
 
     /**
