@@ -231,7 +231,7 @@ public final class Cleaner {
                     double dt = tScratch[q + h] - tScratch[q];
                     if (dt != 0) work[ns++] = (dScratch[q + h] - dScratch[q]) / dt;
                 }
-                double slope = ns > 0 ? median(work, ns) : 0;
+                double slope = ns == 5 ? median5(work[0], work[1], work[2], work[3], work[4]) : ns > 0 ? median(work, ns) : 0;
                 int i = order[from + p];
                 double thr = floor;
                 if (Double.isFinite(tvu[i])) thr = Math.max(thr, kTvu * tvu[i]);
@@ -259,6 +259,18 @@ public final class Cleaner {
             }
         }
         return untested;
+    }
+
+    /**
+     * The median of five values (a window of ten neighbours gives five slopes) without sorting: the
+     * middle two of a, b, c, d are max(min(a, b), min(c, d)) and min(max(a, b), max(c, d)), and the
+     * median of all five is the median of those two and e. The same value as {@link #median}; only
+     * the sign of a zero may differ between equal values, which changes no residual.
+     */
+    static double median5(double a, double b, double c, double d, double e) {
+        double x = Math.max(Math.min(a, b), Math.min(c, d));
+        double y = Math.min(Math.max(a, b), Math.max(c, d));
+        return Math.max(Math.min(x, y), Math.min(Math.max(x, y), e));
     }
 
     /**

@@ -178,4 +178,18 @@ class CleanerTest {
         ties[3] = -1;
         assertThat(Cleaner.median(ties, 40)).isEqualTo(7);
     }
+
+    @Test
+    void medianOfFiveEqualsTheSortedMiddleValue() {
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(9);
+        double[] w = new double[5];
+        for (int k = 0; k < 200_000; k++) {
+            // few distinct values, so that ties are common; now and then a wide spread
+            for (int q = 0; q < 5; q++) w[q] = k % 7 == 0 ? rnd.nextGaussian() * 1e3 : rnd.nextInt(4) - 1.5;
+            double fast = Cleaner.median5(w[0], w[1], w[2], w[3], w[4]);
+            double[] sorted = w.clone();
+            java.util.Arrays.sort(sorted);
+            assertThat(fast).as("median of %s", java.util.Arrays.toString(w)).isEqualTo(sorted[2]);
+        }
+    }
 }
