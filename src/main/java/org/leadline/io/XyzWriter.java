@@ -78,6 +78,15 @@ public final class XyzWriter {
 
     /** A growable ASCII buffer writing exactly what {@link #fixed3} and {@code StringBuilder.append(long)} write. */
     private static final class Bytes {
+        /** "00", "01", ... "99". */
+        private static final byte[] PAIRS = new byte[200];
+        static {
+            for (int i = 0; i < 100; i++) {
+                PAIRS[2 * i] = (byte) ('0' + i / 10);
+                PAIRS[2 * i + 1] = (byte) ('0' + i % 10);
+            }
+        }
+
         byte[] b;
         int n;
 
@@ -104,6 +113,7 @@ public final class XyzWriter {
                 put('-');
                 v = -v;
             }
+            if (v <= Integer.MAX_VALUE) return natural((int) v);
             int len = 1;
             for (long t = v; t >= 10; t /= 10) len++;
             int p = n + len;
@@ -115,13 +125,35 @@ public final class XyzWriter {
             return this;
         }
 
+        /** 0 <= w as decimal digits, two at a time (int division by a constant is a multiplication). */
+        private Bytes natural(int w) {
+            int len = 1;
+            for (int t = w; t >= 10; t /= 10) len++;
+            int p = n + len;
+            n = p;
+            while (w >= 100) {
+                int q = w / 100, r = w - 100 * q;
+                w = q;
+                b[--p] = PAIRS[2 * r + 1];
+                b[--p] = PAIRS[2 * r];
+            }
+            if (w >= 10) {
+                b[--p] = PAIRS[2 * w + 1];
+                b[--p] = PAIRS[2 * w];
+            } else {
+                b[--p] = (byte) ('0' + w);
+            }
+            return this;
+        }
+
         /** As {@link XyzWriter#fixed3}: three decimals, half away from zero; NaN, infinities and huge values as Java prints them. */
         Bytes fixed3(double v) {
             if (!Double.isFinite(v) || Math.abs(v) >= 9e15 / 1000) return text(Double.toString(v));
             long m = Math.round(Math.abs(v) * 1000);
             if (v < 0 && m != 0) put('-');
-            integer(m / 1000).put('.');
-            int f = (int) (m % 1000);
+            long whole = m / 1000;   // constant divisor: a multiplication
+            integer(whole).put('.');
+            int f = (int) (m - whole * 1000);
             b[n++] = (byte) ('0' + f / 100);
             b[n++] = (byte) ('0' + f / 10 % 10);
             b[n++] = (byte) ('0' + f % 10);
