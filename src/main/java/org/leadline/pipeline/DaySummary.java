@@ -33,27 +33,47 @@ public final class DaySummary {
      */
     public void add(PingTable p, double[] mLat, double[] mLon, double[] heave, double[] roll, double[] pitch,
                     double setSpeed) {
-        for (int i = 0; i < p.size; i++) {
-            lat.add(mLat[i]);
-            lon.add(mLon[i]);
+        int n = p.size;
+        // the samples only look at the rows they keep; the counts and extremes go in parallel
+        // blocks folded in row order, so the result is that of one pass in file order
+        lat.addEvery(n, i -> mLat[i]);
+        lon.addEvery(n, i -> mLon[i]);
+        depth.addEvery(n, i -> {
             double x = Double.isFinite(p.twtt[i]) ? 1600 * p.twtt[i] / 2 : p.depth[i] * 1600 / setSpeed;
-            depth.add(Double.isFinite(x) ? x : 0);
-            double h = heave[i];
-            if (Math.abs(h) > Plausibility.MAX_HEAVE_M) {
-                heaveCount++;
-                if (Math.abs(h) > Math.abs(heaveWorst)) heaveWorst = h;
+            return Double.isFinite(x) ? x : 0;
+        });
+        int block = 1 << 16;
+        double[][] part = new double[(n + block - 1) / block][];
+        java.util.stream.IntStream.range(0, part.length).parallel().forEach(b -> {
+            int count = 0;
+            double worst = 0, mT = 0, mA = 0, lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+            for (int i = b * block, end = Math.min(n, (b + 1) * block); i < end; i++) {
+                double h = heave[i];
+                if (Math.abs(h) > Plausibility.MAX_HEAVE_M) {
+                    count++;
+                    if (Math.abs(h) > Math.abs(worst)) worst = h;
+                }
+                double t = Double.isFinite(p.twtt[i]) ? p.twtt[i] / 2 : p.depth[i] / setSpeed;
+                if (t > mT) mT = t;
+                double a = Math.abs(Double.isNaN(p.angle[i]) ? 0 : p.angle[i])
+                        + Math.abs(Double.isNaN(roll[i]) ? 0 : roll[i])
+                        + Math.abs(Double.isNaN(pitch[i]) ? 0 : pitch[i]);
+                if (a > mA) mA = a;
+                double hz = Double.isNaN(h) ? 0 : h;
+                lo = Math.min(lo, -hz);
+                hi = Math.max(hi, -hz);
             }
-            double t = Double.isFinite(p.twtt[i]) ? p.twtt[i] / 2 : p.depth[i] / setSpeed;
-            if (t > maxT) maxT = t;
-            double a = Math.abs(Double.isNaN(p.angle[i]) ? 0 : p.angle[i])
-                    + Math.abs(Double.isNaN(roll[i]) ? 0 : roll[i])
-                    + Math.abs(Double.isNaN(pitch[i]) ? 0 : pitch[i]);
-            if (a > maxAngle) maxAngle = a;
-            double hz = Double.isNaN(h) ? 0 : h;
-            minZ = Math.min(minZ, -hz);
-            maxZ = Math.max(maxZ, -hz);
+            part[b] = new double[] {count, worst, mT, mA, lo, hi};
+        });
+        for (double[] q : part) {
+            heaveCount += (int) q[0];
+            if (Math.abs(q[1]) > Math.abs(heaveWorst)) heaveWorst = q[1];
+            if (q[2] > maxT) maxT = q[2];
+            if (q[3] > maxAngle) maxAngle = q[3];
+            minZ = Math.min(minZ, q[4]);
+            maxZ = Math.max(maxZ, q[5]);
         }
-        rows += p.size;
+        rows += n;
     }
 
     public long rows() { return rows; }
@@ -108,6 +128,25 @@ public final class DaySummary {
             }
             if (n == v.length) v = Arrays.copyOf(v, Math.min(cap, 2 * n));
             v[n++] = x;
+        }
+
+        /**
+         * {@link #add} of f(0), ..., f(n - 1), calling f only for the rows kept: the rows in
+         * between would only be counted.
+         */
+        void addEvery(int count, java.util.function.IntToDoubleFunction f) {
+            int i = 0;
+            while (i < count) {
+                long r = seen & (stride - 1);
+                if (r != 0) {
+                    long skip = Math.min(stride - r, count - i);
+                    seen += skip;
+                    i += (int) skip;
+                    continue;
+                }
+                add(f.applyAsDouble(i));
+                i++;
+            }
         }
 
         double[] values() { return Arrays.copyOf(v, n); }
