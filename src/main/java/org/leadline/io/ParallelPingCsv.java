@@ -402,46 +402,51 @@ final class ParallelPingCsv {
             final int fields = kind.length;
             int maxCol = 0;
             for (int c : h.col) maxCol = Math.max(maxCol, c);
-            while (p < len) {
-                int rowStart = p;
-                byte c0 = b[p];
-                if (c0 == '#') { // comment line
-                    skipField(true);
-                    p++;
-                    continue;
-                }
-                if (c0 == '\n') { p++; continue; } // blank line
-                if (c0 == '\r' && p + 1 < len && b[p + 1] == '\n') { p += 2; continue; }
-                if (k.n == k.capacity) throw GIVE_UP; // cannot happen: capacity counts the lines
-                int r = k.base + k.n;
-                int f = 0;
-                while (true) {
-                    int kd = f < fields ? kind[f] : SKIP;
-                    switch (kd) {
-                        case SKIP -> skipField(false);
-                        case TIME -> time(r);
-                        case LINE -> line(r);
-                        case BEAM -> beam[r] = integer();
-                        case QUALITY -> quality[r] = integer();
-                        default -> k.d[kd][r] = checked(kd, number());
-                    }
-                    f++;
-                    if (p >= len || b[p] == '\n') break;
-                    p++; // the comma
-                }
-                boolean lineEnd = p < len;
+            // one line per call: run() is called once per range, so its loop would run in the
+            // interpreter until compiled on the stack; parseLine() is called per row and compiled early
+            while (p < len) parseLine(fields, maxCol);
+        }
+
+        /** Parses the line at p (a row, a comment or a blank line) and moves p past it. */
+        private void parseLine(int fields, int maxCol) {
+            int rowStart = p;
+            byte c0 = b[p];
+            if (c0 == '#') { // comment line
+                skipField(true);
                 p++;
-                if (f == 1) { // a line of spaces only
-                    boolean blank = true;
-                    for (int q = rowStart; q < Math.min(p, len); q++) if ((b[q] & 0xff) > ' ') { blank = false; break; }
-                    if (blank) throw GIVE_UP;
-                }
-                if (!lineEnd && f < fields) throw GIVE_UP; // a short last row without line end: the general path says the file is cut off
-                if (f <= maxCol) missing(r, f);
-                double tw = twtt == null ? Double.NaN : twtt[r], de = depth == null ? Double.NaN : depth[r];
-                if (Double.isNaN(tw) && Double.isNaN(de)) throw GIVE_UP;
-                k.n++;
+                return;
             }
+            if (c0 == '\n') { p++; return; } // blank line
+            if (c0 == '\r' && p + 1 < len && b[p + 1] == '\n') { p += 2; return; }
+            if (k.n == k.capacity) throw GIVE_UP; // cannot happen: capacity counts the lines
+            int r = k.base + k.n;
+            int f = 0;
+            while (true) {
+                int kd = f < fields ? kind[f] : SKIP;
+                switch (kd) {
+                    case SKIP -> skipField(false);
+                    case TIME -> time(r);
+                    case LINE -> line(r);
+                    case BEAM -> beam[r] = integer();
+                    case QUALITY -> quality[r] = integer();
+                    default -> k.d[kd][r] = checked(kd, number());
+                }
+                f++;
+                if (p >= len || b[p] == '\n') break;
+                p++; // the comma
+            }
+            boolean lineEnd = p < len;
+            p++;
+            if (f == 1) { // a line of spaces only
+                boolean blank = true;
+                for (int q = rowStart; q < Math.min(p, len); q++) if ((b[q] & 0xff) > ' ') { blank = false; break; }
+                if (blank) throw GIVE_UP;
+            }
+            if (!lineEnd && f < fields) throw GIVE_UP; // a short last row without line end: the general path says the file is cut off
+            if (f <= maxCol) missing(r, f);
+            double tw = twtt == null ? Double.NaN : twtt[r], de = depth == null ? Double.NaN : depth[r];
+            if (Double.isNaN(tw) && Double.isNaN(de)) throw GIVE_UP;
+            k.n++;
         }
 
         /** Fields beyond a short row's end: empty. */
