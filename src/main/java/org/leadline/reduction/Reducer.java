@@ -98,7 +98,7 @@ public final class Reducer {
     public SoundingTable reduce(PingTable pings, MergedInputs in, BeamTracer[] tracers, CastChoice choice,
                                 WaterLevelAt waterLevel, Projector projector) {
         int n = pings.size;
-        SoundingTable s = new SoundingTable(n, pings.lineNames());
+        SoundingTable s = new SoundingTable(n, pings.lineNames(), pings.time, pings.line, pings.beam);
         int chunk = 1 << 14;
         int chunks = (n + chunk - 1) / chunk;
         IntStream.range(0, chunks).parallel().forEach(c -> {
@@ -151,9 +151,6 @@ public final class Reducer {
 
     private void reduceOne(int i, PingTable p, MergedInputs in, BeamTracer[] tracers, CastChoice choice,
                            WaterLevelAt waterLevel, SoundingTable s, double[] out, double[] out2, PingState ps) {
-        s.time[i] = p.time[i];
-        s.line[i] = p.line[i];
-        s.beam[i] = p.beam[i];
         s.cast[i] = choice.castA()[i];
         s.speedOverGround[i] = in.speedOverGround()[i];
         byte pre = in.preReason() == null ? 0 : in.preReason()[i];

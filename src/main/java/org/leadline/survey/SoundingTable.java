@@ -39,11 +39,23 @@ public final class SoundingTable {
     private final List<String> lineNames;
 
     public SoundingTable(int size, List<String> lineNames) {
+        this(size, lineNames, new double[size], new int[size], new int[size]);
+    }
+
+    /**
+     * A table whose time, line and beam columns are the given arrays, shared rather than copied
+     * (the ping table's own: a sounding has its ping's time, line and beam; on a swath day each
+     * column is tens of megabytes). Nothing in Leadline writes into them after reading.
+     */
+    public SoundingTable(int size, List<String> lineNames, double[] time, int[] line, int[] beam) {
+        if (time.length != size || line.length != size || beam.length != size) {
+            throw new IllegalArgumentException("time, line and beam columns must have " + size + " rows");
+        }
         this.size = size;
         this.lineNames = List.copyOf(lineNames);
-        time = new double[size];
-        line = new int[size];
-        beam = new int[size];
+        this.time = time;
+        this.line = line;
+        this.beam = beam;
         lat = nan(size);
         lon = nan(size);
         easting = nan(size);
