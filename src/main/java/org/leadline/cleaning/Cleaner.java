@@ -5,7 +5,9 @@ import org.leadline.survey.SoundingTable;
 import org.leadline.survey.SoundingTable.Reason;
 import org.leadline.survey.SoundingTable.Status;
 
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.List;
 import java.util.EnumMap;
 import java.util.Map;
 
@@ -153,13 +155,9 @@ public final class Cleaner {
      */
     public static int spikeFlags(SoundingTable s, CleaningSettings cfg, boolean[] spike) {
         int n = s.size;
-        int m = 0;
-        int[] cand = new int[n];
-        for (int i = 0; i < n; i++) {
-            if (s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i]) && Double.isFinite(s.time[i])) {
-                cand[m++] = i;
-            }
-        }
+        int[] cand = rowsWhere(n, i -> s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i])
+                && Double.isFinite(s.time[i]));
+        int m = cand.length;
         // number the series: (line, beam); the whole line for a single beam
         int[] beamKey = seriesBeamKeys(s, Math.toRadians(cfg.spikeAngleBand()));
         int[] gid = new int[m];
@@ -355,8 +353,23 @@ public final class Cleaner {
     static int[] seriesBeamKeys(SoundingTable s, double bandRad) {
         int n = s.size;
         int[] key = new int[n];
+        // pings are independent: blocks of whole pings (a block starts where line or time changes) on all cores
+        List<Integer> starts = new ArrayList<>();
+        starts.add(0);
+        for (int i = 1 << 16; i < n; i += 1 << 16) {
+            while (i < n && s.line[i] == s.line[i - 1] && s.time[i] == s.time[i - 1]) i++;
+            if (i < n && i > starts.get(starts.size() - 1)) starts.add(i);
+        }
+        starts.add(n);
+        java.util.stream.IntStream.range(0, starts.size() - 1).parallel()
+                .forEach(b -> beamKeys(s, bandRad, starts.get(b), starts.get(b + 1), key));
+        return key;
+    }
+
+    /** {@link #seriesBeamKeys} of the pings in rows [from, to). */
+    private static void beamKeys(SoundingTable s, double bandRad, int from, int n, int[] key) {
         int[] run = new int[16];
-        int i = 0;
+        int i = from;
         while (i < n) {
             int j = i + 1;
             while (j < n && s.line[j] == s.line[i] && s.time[j] == s.time[i]) j++;
@@ -383,7 +396,28 @@ public final class Cleaner {
             }
             i = j;
         }
-        return key;
+    }
+
+    /** Rows i in [0, n) for which test(i) holds, in order; counted and gathered in parallel blocks. */
+    static int[] rowsWhere(int n, java.util.function.IntPredicate test) {
+        int block = 1 << 16, blocks = (n + block - 1) / block;
+        int[][] parts = new int[blocks][];
+        java.util.stream.IntStream.range(0, blocks).parallel().forEach(b -> {
+            int from = b * block, to = Math.min(n, from + block);
+            int[] out = new int[to - from];
+            int k = 0;
+            for (int i = from; i < to; i++) if (test.test(i)) out[k++] = i;
+            parts[b] = k == out.length ? out : Arrays.copyOf(out, k);
+        });
+        int m = 0;
+        for (int[] p : parts) m += p.length;
+        int[] all = new int[m];
+        m = 0;
+        for (int[] p : parts) {
+            System.arraycopy(p, 0, all, m, p.length);
+            m += p.length;
+        }
+        return all;
     }
 
     // ------------------------------------------------------------------ surface filter
@@ -392,14 +426,11 @@ public final class Cleaner {
     static int surfaceFilter(SoundingTable s, CleaningSettings cfg, int[] counts, boolean[] core) {
         int n = s.size;
         double cell = cfg.surfaceCell();
-        int m = 0;
-        int[] cand = new int[n];
-        int untested = 0;
-        for (int i = 0; i < n; i++) {
-            if (s.status[i] != Status.ACCEPTED.code) continue;
-            if (Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i])) cand[m++] = i;
-            else if (core == null || core[i]) untested++;
-        }
+        int[] cand = rowsWhere(n, i -> s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i])
+                && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i]));
+        int m = cand.length;
+        int untested = rowsWhere(n, i -> s.status[i] == Status.ACCEPTED.code && (core == null || core[i])
+                && !(Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i]))).length;
         int[] cid = new int[m];
         CellIndex ids = CellIndex.of(s, cand, m, cell, cid);
         int cells = ids.cells();
@@ -581,7 +612,7 @@ public final class Cleaner {
      */
     static void restoreSupported(SoundingTable s, boolean[] flagged, double floor, double kTvu) {
         int n = s.size;
-        int[] flags = indicesOf(flagged);
+        int[] flags = rowsWhere(n, i -> flagged[i]);
         int nf = flags.length;
         if (nf == 0) return;
         double r = SUPPORT_RADIUS;
@@ -639,16 +670,6 @@ public final class Cleaner {
             keep[i] = support >= SUPPORT_MIN;
         }
         for (int i : flags) if (keep[i]) flagged[i] = false;
-    }
-
-    /** Rows i with flags[i] set, in order. */
-    static int[] indicesOf(boolean[] flags) {
-        int k = 0;
-        for (boolean f : flags) if (f) k++;
-        int[] out = new int[k];
-        k = 0;
-        for (int i = 0; i < flags.length; i++) if (flags[i]) out[k++] = i;
-        return out;
     }
 
     /** Accepted rows in [from, to) with a finite depth and position whose cell is in {@code near}, in order. */
