@@ -207,56 +207,68 @@ public final class Cleaner {
                 mergeSortByKey(order, from, to, time, tmp);
                 gather(order, from, len, time, depth, lt, ld);
             }
+            // one sounding per call: called millions of times, so compiled early (a loop over a
+            // task's series would wait in the interpreter for an on-stack compile)
             for (int p = 0; p < len; p++) {
-                int lo = p - half;
-                if (lo < 0) lo = 0;
-                int hi = lo + kn;
-                if (hi > len - 1) {
-                    hi = len - 1;
-                    lo = hi - kn;
-                }
-                double ti = lt[p];
-                int c = 0;
-                for (int q = lo; q <= hi; q++) {
-                    if (q == p) continue;
-                    tScratch[c] = lt[q] - ti;
-                    dScratch[c] = ld[q];
-                    c++;
-                }
-                // local slope: median of slopes of pairs half a window apart (Theil-Sen on a fixed pairing)
-                int h = c / 2, ns = 0;
-                for (int q = 0; q + h < c; q++) {
-                    double dt = tScratch[q + h] - tScratch[q];
-                    if (dt != 0) work[ns++] = (dScratch[q + h] - dScratch[q]) / dt;
-                }
-                double slope = ns == 5 ? median5(work[0], work[1], work[2], work[3], work[4]) : ns > 0 ? median(work, ns) : 0;
                 int i = order[from + p];
-                double thr = floor;
-                if (Double.isFinite(tvu[i])) thr = Math.max(thr, kTvu * tvu[i]);
-                double nearLo = ld[p] - 0.999 * thr, nearHi = ld[p] + 0.999 * thr;
-                int below = 0, above = 0;
-                for (int q = 0; q < c; q++) {
-                    double r = dScratch[q] - slope * tScratch[q];
-                    resid[q] = r;
-                    if (r < nearLo) below++;
-                    if (r > nearHi) above++;
-                }
-                // the median (middle value, or mean of the two middle values, of the sorted
-                // residuals) lies within [nearLo, nearHi] when at most (c-1)/2 residuals fall below it and
-                // at most c-1-c/2 above: then this sounding is within its threshold of the fit and
-                // cannot be a spike (most soundings), and the median need not be found. The 0.1 %
-                // margin keeps rounding on the safe side.
-                if (below <= (c - 1) / 2 && above <= c - 1 - c / 2) continue;
-                System.arraycopy(resid, 0, work, 0, c);
-                double fit = median(work, c);
-                double dev = Math.abs(ld[p] - fit);
-                if (dev <= thr) continue;
-                for (int q = 0; q < c; q++) work[q] = Math.abs(resid[q] - fit);
-                double mad = median(work, c);
-                if (dev > Math.max(thr, k * MAD_TO_SIGMA * mad)) spike[i] = true;
+                if (spikeAt(p, len, kn, half, lt, ld, tvu[i], floor, kTvu, k, tScratch, dScratch, work, resid)) spike[i] = true;
             }
         }
         return untested;
+    }
+
+    /**
+     * The along-track test of sounding p of a series (times lt, depths ld, len soundings, window of
+     * kn neighbours): true when it is a spike (see {@link #spikeFlags}).
+     */
+    private static boolean spikeAt(int p, int len, int kn, int half, double[] lt, double[] ld, double tvu, double floor,
+                                   double kTvu, double k, double[] tScratch, double[] dScratch, double[] work,
+                                   double[] resid) {
+        int lo = p - half;
+        if (lo < 0) lo = 0;
+        int hi = lo + kn;
+        if (hi > len - 1) {
+            hi = len - 1;
+            lo = hi - kn;
+        }
+        double ti = lt[p];
+        int c = 0;
+        for (int q = lo; q <= hi; q++) {
+            if (q == p) continue;
+            tScratch[c] = lt[q] - ti;
+            dScratch[c] = ld[q];
+            c++;
+        }
+        // local slope: median of slopes of pairs half a window apart (Theil-Sen on a fixed pairing)
+        int h = c / 2, ns = 0;
+        for (int q = 0; q + h < c; q++) {
+            double dt = tScratch[q + h] - tScratch[q];
+            if (dt != 0) work[ns++] = (dScratch[q + h] - dScratch[q]) / dt;
+        }
+        double slope = ns == 5 ? median5(work[0], work[1], work[2], work[3], work[4]) : ns > 0 ? median(work, ns) : 0;
+        double thr = floor;
+        if (Double.isFinite(tvu)) thr = Math.max(thr, kTvu * tvu);
+        double nearLo = ld[p] - 0.999 * thr, nearHi = ld[p] + 0.999 * thr;
+        int below = 0, above = 0;
+        for (int q = 0; q < c; q++) {
+            double r = dScratch[q] - slope * tScratch[q];
+            resid[q] = r;
+            if (r < nearLo) below++;
+            if (r > nearHi) above++;
+        }
+        // the median (middle value, or mean of the two middle values, of the sorted residuals)
+        // lies within [nearLo, nearHi] when at most (c-1)/2 residuals fall below it and at most
+        // c-1-c/2 above: then this sounding is within its threshold of the fit and cannot be a
+        // spike (most soundings), and the median need not be found. The 0.1 % margin keeps
+        // rounding on the safe side.
+        if (below <= (c - 1) / 2 && above <= c - 1 - c / 2) return false;
+        System.arraycopy(resid, 0, work, 0, c);
+        double fit = median(work, c);
+        double dev = Math.abs(ld[p] - fit);
+        if (dev <= thr) return false;
+        for (int q = 0; q < c; q++) work[q] = Math.abs(resid[q] - fit);
+        double mad = median(work, c);
+        return dev > Math.max(thr, k * MAD_TO_SIGMA * mad);
     }
 
     /**
@@ -446,30 +458,13 @@ public final class Cleaner {
         boolean[] ok = new boolean[cells];
         int[] taskStart = tasks(start, cells, m);
         final int[] ord = order;
+        // one cell per call below: these methods are called once per cell and compiled early,
+        // where a loop over all cells of a task would wait in the interpreter for an on-stack compile
+        int minCount = cfg.surfaceMinCount();
         java.util.stream.IntStream.range(0, taskStart.length - 1).parallel().forEach(t -> {
             double[] scratch = new double[64];
             for (int c = taskStart[t]; c < taskStart[t + 1]; c++) {
-                int from = start[c], len = start[c + 1] - from;
-                if (scratch.length < len) scratch = new double[Math.max(len, scratch.length * 2)];
-                double se = 0, sn = 0, stv = 0;
-                int nt = 0;
-                for (int q = 0; q < len; q++) {
-                    int i = ord[from + q];
-                    scratch[q] = s.depth[i];
-                    se += s.easting[i];
-                    sn += s.northing[i];
-                    double v = s.tvu[i];
-                    if (Double.isFinite(v)) {
-                        stv += v;
-                        nt++;
-                    }
-                }
-                ct[c] = nt > 0 ? stv / nt : Double.NaN;
-                if (len < cfg.surfaceMinCount()) continue;
-                ok[c] = true;
-                cz[c] = median(scratch, len);
-                ce[c] = se / len;
-                cn[c] = sn / len;
+                scratch = representative(s, ord, start[c], start[c + 1], scratch, minCount, c, ce, cn, cz, ct, ok);
             }
         });
 
@@ -481,43 +476,88 @@ public final class Cleaner {
             double[] plane = new double[3];
             int notTested = 0;
             for (int c = taskStart[t]; c < taskStart[t + 1]; c++) {
-                long key = keys[c];
-                int cx = (int) (key >> 32), cy = (int) key;
-                double e0 = (cx + 0.5) * cell, n0 = (cy + 0.5) * cell;
-                int np = 0;
-                for (int dx = -1; dx <= 1; dx++) {
-                    for (int dy = -1; dy <= 1; dy++) {
-                        int o = ids.find(cx + dx, cy + dy);
-                        if (o >= 0 && ok[o]) {
-                            px[np] = ce[o] - e0;
-                            py[np] = cn[o] - n0;
-                            pz[np] = cz[o];
-                            np++;
-                        }
-                    }
-                }
-                int from = start[c], to = start[c + 1];
-                if (np == 0 || !Double.isFinite(ct[c])) {
-                    for (int q = from; q < to; q++) if (core == null || core[ord[q]]) notTested++;
-                    continue;
-                }
-                fitPlane(px, py, pz, np, kS * ct[c], w, plane);
-                double a = plane[0], bx = plane[1], by = plane[2];
-                for (int q = from; q < to; q++) {
-                    int i = ord[q];
-                    if (!Double.isFinite(s.tvu[i])) {
-                        if (core == null || core[i]) notTested++;
-                        continue;
-                    }
-                    double surf = a + bx * (s.easting[i] - e0) + by * (s.northing[i] - n0);
-                    if (Math.abs(s.depth[i] - surf) > kS * s.tvu[i]) rejectIt[i] = true;
-                }
+                notTested += filterCell(s, ord, start, c, keys[c], cell, ids, ok, ce, cn, cz, ct, kS, core, rejectIt,
+                        px, py, pz, w, plane);
             }
             return notTested;
         }).sum();
         restoreSupported(s, rejectIt, cfg.spikeFloor(), cfg.spikeKTvu());
         for (int i = 0; i < n; i++) if (rejectIt[i]) reject(s, i, Reason.SURFACE, counts);
         return untested;
+    }
+
+    /**
+     * Cell c's representative for the surface filter: mean TVU into ct, and when it holds at least
+     * minCount soundings, ok, the median depth, mean easting and northing. Returns the scratch
+     * array (grown when the cell needed more room).
+     */
+    private static double[] representative(SoundingTable s, int[] ord, int from, int to, double[] scratch, int minCount,
+                                           int c, double[] ce, double[] cn, double[] cz, double[] ct, boolean[] ok) {
+        int len = to - from;
+        if (scratch.length < len) scratch = new double[Math.max(len, scratch.length * 2)];
+        double se = 0, sn = 0, stv = 0;
+        int nt = 0;
+        for (int q = 0; q < len; q++) {
+            int i = ord[from + q];
+            scratch[q] = s.depth[i];
+            se += s.easting[i];
+            sn += s.northing[i];
+            double v = s.tvu[i];
+            if (Double.isFinite(v)) {
+                stv += v;
+                nt++;
+            }
+        }
+        ct[c] = nt > 0 ? stv / nt : Double.NaN;
+        if (len < minCount) return scratch;
+        ok[c] = true;
+        cz[c] = median(scratch, len);
+        ce[c] = se / len;
+        cn[c] = sn / len;
+        return scratch;
+    }
+
+    /**
+     * The surface filter's test of the soundings of cell c against the plane through the
+     * representatives of its 3 x 3 neighbourhood; marks rejections in rejectIt and returns the
+     * number of the cell's soundings (of the core) it could not test.
+     */
+    private static int filterCell(SoundingTable s, int[] ord, int[] start, int c, long key, double cell, CellIndex ids,
+                                  boolean[] ok, double[] ce, double[] cn, double[] cz, double[] ct, double kS,
+                                  boolean[] core, boolean[] rejectIt, double[] px, double[] py, double[] pz,
+                                  double[] w, double[] plane) {
+        int cx = (int) (key >> 32), cy = (int) key;
+        double e0 = (cx + 0.5) * cell, n0 = (cy + 0.5) * cell;
+        int np = 0;
+        for (int dx = -1; dx <= 1; dx++) {
+            for (int dy = -1; dy <= 1; dy++) {
+                int o = ids.find(cx + dx, cy + dy);
+                if (o >= 0 && ok[o]) {
+                    px[np] = ce[o] - e0;
+                    py[np] = cn[o] - n0;
+                    pz[np] = cz[o];
+                    np++;
+                }
+            }
+        }
+        int from = start[c], to = start[c + 1];
+        int notTested = 0;
+        if (np == 0 || !Double.isFinite(ct[c])) {
+            for (int q = from; q < to; q++) if (core == null || core[ord[q]]) notTested++;
+            return notTested;
+        }
+        fitPlane(px, py, pz, np, kS * ct[c], w, plane);
+        double a = plane[0], bx = plane[1], by = plane[2];
+        for (int q = from; q < to; q++) {
+            int i = ord[q];
+            if (!Double.isFinite(s.tvu[i])) {
+                if (core == null || core[i]) notTested++;
+                continue;
+            }
+            double surf = a + bx * (s.easting[i] - e0) + by * (s.northing[i] - n0);
+            if (Math.abs(s.depth[i] - surf) > kS * s.tvu[i]) rejectIt[i] = true;
+        }
+        return notTested;
     }
 
     /**
