@@ -42,31 +42,29 @@ public final class GeoJsonWriter {
      * @param lines lines whose x is longitude and y latitude, degrees (WGS84)
      */
     public static void writeContours(Path file, List<Contours.Polyline> lines) throws IOException {
-        atomicWrite(file, out -> contours(out, lines));
-    }
-
-    private static void contours(OutputStream out, List<Contours.Polyline> lines) throws IOException {
-        try (JsonGenerator j = JSON.createGenerator(out, JsonEncoding.UTF8)) {
-            startCollection(j);
-            for (Contours.Polyline p : lines) {
-                if (p.size() < 2) continue;   // RFC 7946 sect. 3.1.4: two or more positions
-                j.writeStartObject();
-                j.writeStringField("type", "Feature");
-                j.writeObjectFieldStart("geometry");
-                j.writeStringField("type", "LineString");
-                j.writeArrayFieldStart("coordinates");
-                for (int i = 0; i < p.size(); i++) position(j, p.x()[i], p.y()[i]);
-                j.writeEndArray();
-                j.writeEndObject();
-                j.writeObjectFieldStart("properties");
-                j.writeFieldName("depth");
-                j.writeNumber(round(p.level(), 3));
-                j.writeBooleanField("closed", p.closed());
-                j.writeEndObject();
-                j.writeEndObject();
+        atomicWrite(file, out -> {
+            try (JsonGenerator j = JSON.createGenerator(out, JsonEncoding.UTF8)) {
+                startCollection(j);
+                for (Contours.Polyline p : lines) {
+                    if (p.size() < 2) continue;   // RFC 7946 sect. 3.1.4: two or more positions
+                    j.writeStartObject();
+                    j.writeStringField("type", "Feature");
+                    j.writeObjectFieldStart("geometry");
+                    j.writeStringField("type", "LineString");
+                    j.writeArrayFieldStart("coordinates");
+                    for (int i = 0; i < p.size(); i++) position(j, p.x()[i], p.y()[i]);
+                    j.writeEndArray();
+                    j.writeEndObject();
+                    j.writeObjectFieldStart("properties");
+                    j.writeFieldName("depth");
+                    j.writeNumber(round(p.level(), 3));
+                    j.writeBooleanField("closed", p.closed());
+                    j.writeEndObject();
+                    j.writeEndObject();
+                }
+                endCollection(j);
             }
-            endCollection(j);
-        }
+        });
     }
 
     /**
@@ -84,50 +82,31 @@ public final class GeoJsonWriter {
             throw new IllegalArgumentException("sounding columns differ in length: lon " + lon.length + ", lat "
                     + lat.length + ", depth " + depth.length + (tvu != null ? ", tvu " + tvu.length : ""));
         }
-        atomicWrite(file, out -> soundings(out, lon, lat, depth, tvu));
-    }
-
-    private static void soundings(OutputStream out, double[] lon, double[] lat, double[] depth, double[] tvu)
-            throws IOException {
-        try (JsonGenerator j = JSON.createGenerator(out, JsonEncoding.UTF8)) {
-            startCollection(j);
-            for (int i = 0; i < lon.length; i++) {
-                if (!Double.isFinite(lon[i]) || !Double.isFinite(lat[i]) || !Double.isFinite(depth[i])) continue;
-                j.writeStartObject();
-                j.writeStringField("type", "Feature");
-                j.writeObjectFieldStart("geometry");
-                j.writeStringField("type", "Point");
-                j.writeFieldName("coordinates");
-                position(j, lon[i], lat[i]);
-                j.writeEndObject();
-                j.writeObjectFieldStart("properties");
-                j.writeFieldName("depth");
-                j.writeNumber(round(depth[i], 3));
-                if (tvu != null && Double.isFinite(tvu[i])) {
-                    j.writeFieldName("tvu");
-                    j.writeNumber(round(tvu[i], 3));
+        atomicWrite(file, out -> {
+            try (JsonGenerator j = JSON.createGenerator(out, JsonEncoding.UTF8)) {
+                startCollection(j);
+                for (int i = 0; i < lon.length; i++) {
+                    if (!Double.isFinite(lon[i]) || !Double.isFinite(lat[i]) || !Double.isFinite(depth[i])) continue;
+                    j.writeStartObject();
+                    j.writeStringField("type", "Feature");
+                    j.writeObjectFieldStart("geometry");
+                    j.writeStringField("type", "Point");
+                    j.writeFieldName("coordinates");
+                    position(j, lon[i], lat[i]);
+                    j.writeEndObject();
+                    j.writeObjectFieldStart("properties");
+                    j.writeFieldName("depth");
+                    j.writeNumber(round(depth[i], 3));
+                    if (tvu != null && Double.isFinite(tvu[i])) {
+                        j.writeFieldName("tvu");
+                        j.writeNumber(round(tvu[i], 3));
+                    }
+                    j.writeEndObject();
+                    j.writeEndObject();
                 }
-                j.writeEndObject();
-                j.writeEndObject();
+                endCollection(j);
             }
-            endCollection(j);
-        }
-    }
-
-    /**
-     * Writes a small contour set and a few thousand soundings into nothing: loads and readies the
-     * JSON generator and the decimal rounding off the end of a run (see ReportWriter.warmUp).
-     */
-    public static void warmUp() throws IOException {
-        int n = 4000;
-        double[] lon = new double[n], lat = new double[n], depth = new double[n];
-        for (int i = 0; i < n; i++) {
-            lon[i] = -4.2 + i * 1.37e-6;
-            lat[i] = 50.3 + i * 0.91e-6;
-            depth[i] = 20 + i * 0.0013;
-        }
-        soundings(OutputStream.nullOutputStream(), lon, lat, depth, depth);
-        contours(OutputStream.nullOutputStream(), List.of(new Contours.Polyline(20, lon, lat, false)));
+        });
     }
 
     private static void startCollection(JsonGenerator j) throws IOException {

@@ -46,15 +46,6 @@ public final class LineageWriter {
     }
 
     /**
-     * Serialises a small document into memory, writing nothing: loads and readies the JSON
-     * binding that {@link #write} uses, off the end of the run (see ReportWriter.warmUp).
-     */
-    public static void warmUp() throws IOException {
-        new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT)
-                .writeValueAsBytes(Map.of("inputs", List.of(Map.of("role", "pings", "bytes", 1L)), "settings", Map.of("cell_m", 1.0)));
-    }
-
-    /**
      * Writes the lineage document to {@code out}.
      *
      * @param settings every setting of the run, in order

@@ -202,18 +202,6 @@ public final class ProcessingRun {
             return t;
         });
         java.util.concurrent.Future<List<LineageWriter.Input>> hashes = hasher.submit(this::hashInputs);
-        // then, on the same thread, the report's chart code, the GeoJSON writer and the lineage's
-        // JSON binding are loaded and run once on throwaway data (nothing is written), so the end
-        // of the run does not wait for class loading; a failure there only means they load later
-        hasher.submit(() -> {
-            try {
-                org.leadline.report.ReportWriter.warmUp();
-                org.leadline.io.GeoJsonWriter.warmUp();
-                LineageWriter.warmUp();
-            } catch (Throwable ignored) {
-                // the real writers will report any real problem
-            }
-        });
         hasher.shutdown();
         // a day too large for the heap is processed in tiles (TiledRun), writing soundings.csv as it goes
         boolean tiled = TiledRun.wanted(project);

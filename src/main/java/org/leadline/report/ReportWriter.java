@@ -41,27 +41,6 @@ public final class ReportWriter {
     /**
      * @param inputs the run's inputs with their SHA-256 (as written to lineage.json)
      */
-    /**
-     * Draws two throwaway charts into memory and encodes them as PNG, writing nothing: the first
-     * chart of a run otherwise pays, at the very end of the run, for loading JFreeChart, the fonts
-     * and the PNG encoder (about 0.4 s on the 10-million-sounding benchmark). A processing run calls
-     * this on its background thread while the science runs.
-     */
-    public static void warmUp() throws IOException {
-        XYSeriesCollection ds = new XYSeriesCollection();
-        XYSeries ser = new XYSeries("profile");
-        ser.add(1500.0, 0.0);
-        ser.add(1490.0, 10.0);
-        ds.addSeries(ser);
-        JFreeChart ch = ChartFactory.createXYLineChart("profile", "sound speed (m/s)", "depth (m)", ds,
-                PlotOrientation.VERTICAL, true, false, false);
-        DefaultCategoryDataset tds = new DefaultCategoryDataset();
-        tds.addValue(0.1, "vertical", "sounder");
-        JFreeChart tch = ChartFactory.createBarChart("components", "", "m", tds, PlotOrientation.HORIZONTAL, false, false, false);
-        ChartUtils.writeBufferedImageAsPNG(new ByteArrayOutputStream(), ch.createBufferedImage(160, 120));
-        ChartUtils.writeBufferedImageAsPNG(new ByteArrayOutputStream(), tch.createBufferedImage(160, 120));
-    }
-
     public static void write(ProcessingRun.Result r, Project project, List<org.leadline.io.LineageWriter.Input> inputs,
                              Path html, OutputFolder out) throws IOException {
         StringBuilder h = new StringBuilder(1 << 15);
