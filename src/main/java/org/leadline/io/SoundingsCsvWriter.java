@@ -99,11 +99,24 @@ public final class SoundingsCsvWriter {
     /** Text of rows [from, to). */
     private static Ascii format(SoundingTable s, int from, int to, byte[][] lines, byte[][] status, byte[][] reason) {
         Ascii a = new Ascii(Math.max(256, (to - from) * 140));
-        long lastSecond = Long.MIN_VALUE;
-        byte[] prefix = new byte[0];
-        StringBuilder sb = new StringBuilder(32);
-        for (int i = from; i < to; i++) {
-            a.ensure(512);
+        // one row per call: called for every row, so compiled early (a loop over a block would run
+        // interpreted until the JIT compiled it on the stack)
+        for (int i = from; i < to; i++) a.row(s, i, lines, status, reason);
+        return a;
+    }
+
+    private static final class Ascii {
+        private byte[] b;
+        private int n;
+        private final byte[] digits = new byte[20];
+        /** "yyyy-mm-ddThh:mm:ss." of the second of the last row written, and that second. */
+        private byte[] prefix = new byte[0];
+        private long lastSecond = Long.MIN_VALUE;
+        private final StringBuilder sb = new StringBuilder(32);
+
+        /** Row i of s, with its line end. */
+        void row(SoundingTable s, int i, byte[][] lines, byte[][] status, byte[][] reason) {
+            ensure(512);
             double t = s.time[i];
             if (!Double.isNaN(t)) {
                 // IsoTime.append: whole seconds from java.time once per second, milliseconds by hand
@@ -116,35 +129,27 @@ public final class SoundingsCsvWriter {
                     prefix = p.substring(0, p.length() - 4).getBytes(StandardCharsets.US_ASCII);
                     lastSecond = sec;
                 }
-                a.put(prefix);
+                put(prefix);
                 int milli = (int) Math.floorMod(ms, 1000);
-                a.digit(milli / 100).digit(milli / 10 % 10).digit(milli % 10).put((byte) 'Z');
+                digit(milli / 100).digit(milli / 10 % 10).digit(milli % 10).put((byte) 'Z');
             }
-            a.put((byte) ',');
-            if (s.line[i] >= 0) a.put(lines[s.line[i]]);
-            a.put((byte) ',');
-            if (s.beam[i] >= 0) a.integer(s.beam[i]);
-            a.put((byte) ',');
-            a.fixed8(s.lat[i]).put((byte) ',');
-            a.fixed8(s.lon[i]).put((byte) ',');
-            a.fixed3(s.easting[i]).put((byte) ',');
-            a.fixed3(s.northing[i]).put((byte) ',');
-            a.fixed3(s.depth[i]).put((byte) ',');
-            a.fixed3(s.tvu[i]).put((byte) ',');
-            a.fixed3(s.thu[i]).put((byte) ',');
-            a.put(status[s.status[i] == 0 ? 0 : 1]).put((byte) ',');
+            put((byte) ',');
+            if (s.line[i] >= 0) put(lines[s.line[i]]);
+            put((byte) ',');
+            if (s.beam[i] >= 0) integer(s.beam[i]);
+            put((byte) ',');
+            fixed8(s.lat[i]).put((byte) ',');
+            fixed8(s.lon[i]).put((byte) ',');
+            fixed3(s.easting[i]).put((byte) ',');
+            fixed3(s.northing[i]).put((byte) ',');
+            fixed3(s.depth[i]).put((byte) ',');
+            fixed3(s.tvu[i]).put((byte) ',');
+            fixed3(s.thu[i]).put((byte) ',');
+            put(status[s.status[i] == 0 ? 0 : 1]).put((byte) ',');
             byte[] why = reason[s.reason[i] & 0xff];
             if (why == null) SoundingTable.Reason.of(s.reason[i]); // unknown code: refused as before
-            a.put(why).put((byte) '\n');
+            put(why).put((byte) '\n');
         }
-        return a;
-    }
-
-    /** A growable ASCII byte buffer with the number formats of {@link Fixed} and {@link IsoTime}. */
-    private static final class Ascii {
-        private byte[] b;
-        private int n;
-        private final byte[] digits = new byte[20];
 
         Ascii(int capacity) { b = new byte[capacity]; }
 

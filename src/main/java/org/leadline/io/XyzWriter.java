@@ -43,18 +43,8 @@ public final class XyzWriter {
                         Bytes tx = new Bytes(Math.max(64, (r1 - r0) * grid.nx * 48));
                         for (int r = r0; r < r1; r++) {
                             double y = grid.centreY(r);
-                            for (int c = 0; c < grid.nx; c++) {
-                                int i = r * grid.nx + c;
-                                if (Float.isNaN(depth[i])) continue;
-                                tx.ensure(160);
-                                tx.fixed3(grid.centreX(c)).put(',');
-                                tx.fixed3(y).put(',');
-                                tx.fixed3(depth[i]).put(',');
-                                tx.fixed3(unc == null ? Double.NaN : unc[i]).put(',');
-                                if (count == null || Float.isNaN(count[i])) tx.text("NaN");
-                                else tx.integer(Math.round(count[i]));
-                                tx.put('\n');
-                            }
+                            // one cell per call: compiled early (see SoundingsCsvWriter.format)
+                            for (int c = 0; c < grid.nx; c++) cell(tx, grid, c, r * grid.nx + c, y, depth, unc, count);
                         }
                         return java.util.Arrays.copyOf(tx.b, tx.n);
                     }).toList();
@@ -65,6 +55,19 @@ public final class XyzWriter {
     }
 
     /** Appends v with exactly three decimals, half away from zero; NaN/infinite as Java prints them. */
+    /** The line of cell i (column c, centre northing y); nothing for an empty cell. */
+    private static void cell(Bytes tx, Grid grid, int c, int i, double y, float[] depth, float[] unc, float[] count) {
+        if (Float.isNaN(depth[i])) return;
+        tx.ensure(160);
+        tx.fixed3(grid.centreX(c)).put(',');
+        tx.fixed3(y).put(',');
+        tx.fixed3(depth[i]).put(',');
+        tx.fixed3(unc == null ? Double.NaN : unc[i]).put(',');
+        if (count == null || Float.isNaN(count[i])) tx.text("NaN");
+        else tx.integer(Math.round(count[i]));
+        tx.put('\n');
+    }
+
     static StringBuilder fixed3(StringBuilder sb, double v) {
         if (!Double.isFinite(v) || Math.abs(v) >= 9e15 / 1000) return sb.append(v);
         long m = Math.round(Math.abs(v) * 1000);
