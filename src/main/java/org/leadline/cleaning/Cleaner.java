@@ -441,8 +441,10 @@ public final class Cleaner {
         int[] cand = rowsWhere(n, i -> s.status[i] == Status.ACCEPTED.code && Double.isFinite(s.depth[i])
                 && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i]));
         int m = cand.length;
-        int untested = rowsWhere(n, i -> s.status[i] == Status.ACCEPTED.code && (core == null || core[i])
-                && !(Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i]))).length;
+        int untested = (int) java.util.stream.IntStream.range(0, n).parallel()
+                .filter(i -> s.status[i] == Status.ACCEPTED.code && (core == null || core[i])
+                        && !(Double.isFinite(s.depth[i]) && Double.isFinite(s.easting[i]) && Double.isFinite(s.northing[i])))
+                .count();
         int[] cid = new int[m];
         CellIndex ids = CellIndex.of(s, cand, m, cell, cid);
         int cells = ids.cells();
